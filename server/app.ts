@@ -1,0 +1,107 @@
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import rateLimit, { ipKeyGenerator } from 'express-rate-limit';
+import path from 'node:path';
+import fs from 'node:fs';
+import { pinoHttp } from 'pino-http';
+import type { Logger } from 'pino';
+import type { Db } from '../db/client';
+import type { Ctx } from './context';
+import { AppError, errorMiddleware } from './errors';
+import { createLogger } from './logger';
+import { requireUser, sessionMiddleware, sessionOptions } from './middleware/session';
+import { routeFactories } from './routes';
+import type { RouteDef } from './routes/route';
+
+export interface AppOptions {
+  db: Db;
+  sessionPassword: string;
+  secureCookies?: boolean;
+  /** The exported web build to serve beside /api; omitted in API-only tests. */
+  webDir?: string;
+  now?: () => Date;
+  logger?: Logger;
+  trustProxy?: string | boolean;
+  /** Sign-in/sign-up attempts per address and e-mail in a 15-minute window. */
+  signInLimit?: number;
+}
+
+export interface CreatedApp {
+  app: Express;
+  ctx: Ctx;
+  /** Every API route, for tests that must cover them all. */
+  routes: RouteDef[];
+}
+
+/** Builds the Express app without listening, so tests can boot it on any port. */
+export function createApp(opts: AppOptions): CreatedApp {
+  const logger = opts.logger ?? createLogger('silent');
+  const ctx: Ctx = { db: opts.db, now: opts.now ?? (() => new Date()), logger };
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', opts.trustProxy ?? 'loopback');
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: true,
+        directives: {
+          'script-src': ["'self'"],
+          // react-native-web writes its styles at run time.
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'font-src': ["'self'", 'data:'],
+          'connect-src': ["'self'"],
+          'upgrade-insecure-requests': null,
+        },
+      },
+      // The app is served over plain HTTP on loopback; HSTS only makes sense behind HTTPS.
+      strictTransportSecurity: opts.secureCookies ? undefined : false,
+    }),
+  );
+  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
+  app.use('/api', express.json({ limit: '256kb' }));
+
+  const sOpts = sessionOptions(opts.sessionPassword, opts.secureCookies ?? false);
+  app.use('/api', sessionMiddleware(ctx, sOpts));
+
+  const signInLimiter = rateLimit({
+    windowMs: 15 * 60 * 1000,
+    limit: opts.signInLimit ?? 10,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    // Per address and e-mail: one person's typos do not lock out a shared club network.
+    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').toLowerCase().slice(0, 254)}`,
+    handler: (_req, _res, next) =>
+      next(new AppError('rate_limited', 'Too many sign-in attempts. Wait a few minutes and try again.', 429)),
+  });
+
+  const routes = routeFactories.flatMap((f) => f(ctx, { signInLimiter, sessionOptions: sOpts }));
+  for (const r of routes) {
+    const chain = [...(r.auth ? [requireUser] : []), ...(r.before ?? [])];
+    app[r.method](r.path, ...chain, async (req, res) => {
+      await r.handler(req, res);
+    });
+  }
+  app.use('/api', (_req, _res, next) => next(new AppError('not_found', 'There is no such API address.', 404)));
+
+  if (opts.webDir) serveWeb(app, opts.webDir);
+  app.use(errorMiddleware(logger));
+  return { app, ctx, routes };
+}
+
+/** Serves the exported web build; deep links answer with the app's index.html. */
+function serveWeb(app: Express, webDir: string) {
+  const dir = path.resolve(webDir);
+  const index = path.join(dir, 'index.html');
+  app.use(
+    '/_expo',
+    express.static(path.join(dir, '_expo'), { immutable: true, maxAge: '365d', fallthrough: false }),
+  );
+  app.use(express.static(dir, { index: false, maxAge: '1h' }));
+  app.get(/^(?!\/api\/).*/, (_req, res, next) => {
+    if (!fs.existsSync(index)) return next(new AppError('not_built', 'The web app has not been built yet. Run npm start.', 503));
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(index);
+  });
+}
