@@ -9,6 +9,7 @@ import type { Box } from '../shared/domain/hives';
 import { hashPassword } from '../server/password';
 import { createDb, type Db } from './client';
 import { apiaries, hives, memberships, queens, users } from './schema';
+import { seedExtensions } from './seed-extensions';
 
 export const DEMO_PASSWORD = 'frameside-demo';
 export const DEMO_USERS = {
@@ -97,12 +98,14 @@ export async function seedDemo(db: Db, { now = new Date() }: { now?: Date } = {}
         });
       }
     }
-    return {
+    const ids: DemoIds = {
       users: { keeper: uid('keeper'), cokeeper: uid('cokeeper'), sitter: uid('sitter'), mentor: uid('mentor') },
       orchardRow: orchard!.id,
       quarryHill: quarry!.id,
       hives: hiveIds,
     };
+    for (const extend of seedExtensions) await extend(tx, ids, now);
+    return ids;
   });
 }
 

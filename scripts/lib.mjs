@@ -69,8 +69,41 @@ function listFiles(dir) {
   return out.sort();
 }
 
-/** Exports the web build to dist/, skipped when nothing it is built from has changed. */
+/**
+ * Exports the web build to dist/, skipped when nothing it is built from has changed. A lock
+ * folder keeps two runs (two terminals, parallel test runs) from writing dist/ at once.
+ */
 export function exportWeb({ force = false } = {}) {
+  const lock = path.join(root, '.tmp', 'export.lock');
+  fs.mkdirSync(path.dirname(lock), { recursive: true });
+  for (let waited = 0; ; waited += 1) {
+    try {
+      fs.mkdirSync(lock);
+      fs.writeFileSync(path.join(lock, 'pid'), String(process.pid));
+      break;
+    } catch {
+      const owner = Number(fs.readFileSync(path.join(lock, 'pid'), { encoding: 'utf8', flag: 'a+' }) || 0);
+      let alive = false;
+      try {
+        process.kill(owner, 0);
+        alive = owner > 0;
+      } catch {}
+      if (!alive || waited > 600) {
+        fs.rmSync(lock, { recursive: true, force: true });
+        continue;
+      }
+      if (waited === 0) step('Waiting for another web build to finish …');
+      spawnSync('sleep', ['1']);
+    }
+  }
+  try {
+    exportWebLocked({ force });
+  } finally {
+    fs.rmSync(lock, { recursive: true, force: true });
+  }
+}
+
+function exportWebLocked({ force }) {
   const inputs = [
     ...['app', 'components', 'shared', 'assets'].flatMap(listFiles),
     'app.json',

@@ -22,6 +22,8 @@ export interface AppOptions {
   now?: () => Date;
   logger?: Logger;
   trustProxy?: string | boolean;
+  /** Development only: the Metro dev server's origin, allowed to call /api with credentials. */
+  devOrigin?: string;
   /** Sign-in/sign-up attempts per address and e-mail in a 15-minute window. */
   signInLimit?: number;
 }
@@ -60,6 +62,7 @@ export function createApp(opts: AppOptions): CreatedApp {
     }),
   );
   app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
+  if (opts.devOrigin) app.use('/api', devCors(opts.devOrigin));
   app.use('/api', express.json({ limit: '256kb' }));
 
   const sOpts = sessionOptions(opts.sessionPassword, opts.secureCookies ?? false);
@@ -88,6 +91,20 @@ export function createApp(opts: AppOptions): CreatedApp {
   if (opts.webDir) serveWeb(app, opts.webDir);
   app.use(errorMiddleware(logger));
   return { app, ctx, routes };
+}
+
+/** In `npm run dev` the app comes from Metro on another port; only that origin is let in. */
+function devCors(origin: string): express.RequestHandler {
+  return (req, res, next) => {
+    if (req.headers.origin !== origin) return next();
+    res.setHeader('Access-Control-Allow-Origin', origin);
+    res.setHeader('Access-Control-Allow-Credentials', 'true');
+    res.setHeader('Access-Control-Allow-Headers', 'Content-Type, Idempotency-Key');
+    res.setHeader('Access-Control-Allow-Methods', 'GET, POST, PATCH, PUT, DELETE');
+    res.setHeader('Vary', 'Origin');
+    if (req.method === 'OPTIONS') return void res.status(204).end();
+    next();
+  };
 }
 
 /** Serves the exported web build; deep links answer with the app's index.html. */

@@ -21,6 +21,8 @@ const envSchema = z.object({
   SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
   MAIL_FROM: z.string().default('Frameside <no-reply@frameside.test>'),
   PUBLIC_URL: z.string().url().default('http://127.0.0.1:8080'),
+  /** `npm run dev` only: the Metro origin allowed to call the API with cookies. */
+  DEV_ORIGIN: z.string().url().optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });
 

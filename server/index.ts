@@ -15,6 +15,7 @@ export async function start() {
     secureCookies: env.SECURE_COOKIES,
     trustProxy: env.TRUST_PROXY,
     webDir: env.WEB_DIR,
+    devOrigin: env.NODE_ENV === 'development' ? env.DEV_ORIGIN : undefined,
   });
   const server = app.listen(env.PORT, env.HOST, () => {
     logger.info({ url: `http://${env.HOST}:${env.PORT}` }, 'Frameside is listening');

@@ -1,3 +1,5 @@
 export * from './users';
 export * from './apiaries';
 export * from './hives';
+export * from './records';
+export * from './audit';

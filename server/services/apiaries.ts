@@ -1,10 +1,11 @@
-import { and, count, eq, inArray } from 'drizzle-orm';
+import { count, eq, inArray } from 'drizzle-orm';
 import { windowState } from '../../shared/domain/access';
 import type { ApiaryCreateInput, ApiaryDto, ApiaryUpdateInput } from '../../shared/schemas/apiaries';
 import { apiaryCreateSchema } from '../../shared/schemas/apiaries';
 import { apiaries, hives, memberships } from '../../db/schema';
 import type { Ctx, SessionUser } from '../context';
 import { requireApiary, type Membership } from './access';
+import { recordAudit } from './audit';
 
 type ApiaryRow = typeof apiaries.$inferSelect;
 
@@ -54,6 +55,7 @@ export async function createApiary(ctx: Ctx, user: SessionUser, input: ApiaryCre
   return ctx.db.transaction(async (tx) => {
     const [a] = await tx.insert(apiaries).values(values).returning();
     const [m] = await tx.insert(memberships).values({ apiaryId: a!.id, userId: user.id, role: 'owner' }).returning();
+    await recordAudit(tx, ctx, { apiaryId: a!.id, userId: user.id, entity: 'apiary', entityId: a!.id, action: 'create', after: a! });
     return toDto(a!, m!, 0);
   });
 }
@@ -67,11 +69,12 @@ export async function getApiary(ctx: Ctx, user: SessionUser, apiaryId: string): 
 
 export async function updateApiary(ctx: Ctx, user: SessionUser, apiaryId: string, input: ApiaryUpdateInput): Promise<ApiaryDto> {
   const m = await requireApiary(ctx, user, apiaryId, 'apiary:update');
-  const [a] = await ctx.db
-    .update(apiaries)
-    .set({ ...input, updatedAt: ctx.now() })
-    .where(and(eq(apiaries.id, apiaryId)))
-    .returning();
+  const a = await ctx.db.transaction(async (tx) => {
+    const [before] = await tx.select().from(apiaries).where(eq(apiaries.id, apiaryId)).for('update');
+    const [after] = await tx.update(apiaries).set({ ...input, updatedAt: ctx.now() }).where(eq(apiaries.id, apiaryId)).returning();
+    await recordAudit(tx, ctx, { apiaryId, userId: user.id, entity: 'apiary', entityId: apiaryId, action: 'update', before: before!, after: after! });
+    return after;
+  });
   const counts = await hiveCounts(ctx, [apiaryId]);
   return toDto(a!, m, counts.get(apiaryId) ?? 0);
 }

@@ -5,6 +5,7 @@ import { apiaries, hives, queens } from '../../db/schema';
 import type { Ctx, SessionUser } from '../context';
 import { conflict, notFound } from '../errors';
 import { requireApiary, requireHive } from './access';
+import { recordAudit } from './audit';
 
 type HiveRow = typeof hives.$inferSelect;
 type QueenRow = typeof queens.$inferSelect;
@@ -80,7 +81,9 @@ export async function createHive(ctx: Ctx, user: SessionUser, apiaryId: string, 
       .values({ apiaryId, name: v.name, boxes: v.boxes, status: v.status, note: v.note })
       .returning();
     if (v.queen) await tx.insert(queens).values({ hiveId: h!.id, ...queenSchema.parse(v.queen) });
-    return loadHive(tx, h!.id);
+    const dto = await loadHive(tx, h!.id);
+    await recordAudit(tx, ctx, { apiaryId, userId: user.id, entity: 'hive', entityId: h!.id, action: 'create', after: { ...dto } });
+    return dto;
   });
 }
 
@@ -98,6 +101,7 @@ export async function updateHive(ctx: Ctx, user: SessionUser, hiveId: string, in
         current: await loadHive(tx, hiveId),
       });
     }
+    const before = await loadHive(tx, hiveId);
     const { queen, version: _v, ...fields } = input;
     await tx
       .update(hives)
@@ -113,6 +117,8 @@ export async function updateHive(ctx: Ctx, user: SessionUser, hiveId: string, in
         await tx.insert(queens).values({ hiveId, ...queenSchema.parse(queen) });
       }
     }
-    return loadHive(tx, hiveId);
+    const after = await loadHive(tx, hiveId);
+    await recordAudit(tx, ctx, { apiaryId: locked.apiaryId, userId: user.id, entity: 'hive', entityId: hiveId, action: 'update', before: { ...before }, after: { ...after } });
+    return after;
   });
 }

@@ -34,8 +34,11 @@ function migrationsFingerprint(): string {
   return h.digest('hex').slice(0, 16);
 }
 
-/** Creates (or refreshes) the migrated template; safe to call from parallel workers. */
-export async function ensureTemplate(): Promise<void> {
+/**
+ * Creates (or refreshes) the migrated template, and clones it into `cloneAs` when given, all under
+ * one advisory lock so that parallel workers never clone a template another is rebuilding.
+ */
+export async function ensureTemplate(cloneAs?: string): Promise<void> {
   const admin = new Client({ connectionString: adminUrl() });
   await admin.connect();
   try {
@@ -45,11 +48,13 @@ export async function ensureTemplate(): Promise<void> {
       `select shobj_description(d.oid, 'pg_database') as fp from pg_database d where datname = $1`,
       [TEMPLATE],
     );
-    if (rows[0]?.fp === fp) return;
-    if (rows.length) await admin.query(`drop database ${TEMPLATE} with (force)`);
-    await admin.query(`create database ${TEMPLATE}`);
-    await runMigrations(withDb(adminUrl(), TEMPLATE));
-    await admin.query(`comment on database ${TEMPLATE} is '${fp}'`);
+    if (rows[0]?.fp !== fp) {
+      if (rows.length) await admin.query(`drop database ${TEMPLATE} with (force)`);
+      await admin.query(`create database ${TEMPLATE}`);
+      await runMigrations(withDb(adminUrl(), TEMPLATE));
+      await admin.query(`comment on database ${TEMPLATE} is '${fp}'`);
+    }
+    if (cloneAs) await admin.query(`create database ${cloneAs} template ${TEMPLATE}`);
   } finally {
     await admin.query('select pg_advisory_unlock(424242)').catch(() => undefined);
     await admin.end();
@@ -63,15 +68,8 @@ export interface TestDb {
 }
 
 export async function createTestDb(): Promise<TestDb> {
-  await ensureTemplate();
   const name = `t_${randomBytes(6).toString('hex')}`;
-  const admin = new Client({ connectionString: adminUrl() });
-  await admin.connect();
-  try {
-    await admin.query(`create database ${name} template ${TEMPLATE}`);
-  } finally {
-    await admin.end();
-  }
+  await ensureTemplate(name);
   const url = withDb(adminUrl(), name);
   const db = createDb(url, { max: 5 });
   return {
