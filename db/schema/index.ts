@@ -3,3 +3,4 @@ export * from './apiaries';
 export * from './hives';
 export * from './records';
 export * from './audit';
+export * from './people';

@@ -35,6 +35,8 @@ export const ACTIONS = [
   'record:edit-others',
   'record:delete-others',
   'export:read',
+  'handover:read',
+  'activity:read',
   ...RECORD_KINDS.map((kind) => `record:create:${kind}` as const),
 ] as const;
 export type Action = (typeof ACTIONS)[number];
@@ -47,10 +49,13 @@ const ALL_RECORDS = RECORD_KINDS.map((kind) => `record:create:${kind}` as const)
 /** The permission table: for each role, the actions it holds. */
 export const PERMISSIONS: Readonly<Record<Role, readonly Action[]>> = {
   owner: ACTIONS,
-  keeper: ACTIONS.filter((a) => a !== 'apiary:delete' && a !== 'members:manage'),
+  // A keeper runs the hives with the owner but does not decide who has access, delete the
+  // apiary or read the trail of other people's changes.
+  keeper: ACTIONS.filter((a) => a !== 'apiary:delete' && a !== 'members:manage' && a !== 'activity:read'),
   sitter: [
     'apiary:read',
     'hive:read',
+    'handover:read',
     'task:resolve',
     ...SITTER_RECORDS.map((kind) => `record:create:${kind}` as const),
   ],
