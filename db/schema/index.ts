@@ -3,4 +3,5 @@ export * from './apiaries';
 export * from './hives';
 export * from './records';
 export * from './audit';
+export * from './tasks';
 export * from './people';
