@@ -5,3 +5,4 @@ export * from './records';
 export * from './audit';
 export * from './tasks';
 export * from './people';
+export * from './sensors';
