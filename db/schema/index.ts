@@ -6,3 +6,4 @@ export * from './audit';
 export * from './tasks';
 export * from './people';
 export * from './sensors';
+export * from './photos';
