@@ -7,3 +7,4 @@ export * from './tasks';
 export * from './people';
 export * from './sensors';
 export * from './photos';
+export * from './idempotency';
