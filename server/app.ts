@@ -11,7 +11,10 @@ import { AppError, errorMiddleware } from './errors';
 import { createLogger } from './logger';
 import { requireUser, sessionMiddleware, sessionOptions } from './middleware/session';
 import { routeFactories } from './routes';
+import { devMailRouter } from './mail/dev-mail';
+import { noopMailer, type Mailer } from './mail/mailer';
 import type { RouteDef } from './routes/route';
+import { createLocalStorage, type ObjectStorage } from './storage';
 
 export interface AppOptions {
   db: Db;
@@ -26,6 +29,14 @@ export interface AppOptions {
   devOrigin?: string;
   /** Sign-in/sign-up attempts per address and e-mail in a 15-minute window. */
   signInLimit?: number;
+  /** Where photos are kept; default: the local-folder driver under ./uploads (server/index.ts passes UPLOADS_DIR). */
+  storage?: ObjectStorage;
+  /** Where e-mail goes; default: sends nothing. */
+  mailer?: Mailer;
+  /** The address in e-mailed links; default http://127.0.0.1:8080. */
+  publicUrl?: string;
+  /** The local fake mailbox folder: when set, GET /dev/mail lists its messages (never in production). */
+  devMailDir?: string;
 }
 
 export interface CreatedApp {
@@ -38,7 +49,14 @@ export interface CreatedApp {
 /** Builds the Express app without listening, so tests can boot it on any port. */
 export function createApp(opts: AppOptions): CreatedApp {
   const logger = opts.logger ?? createLogger('silent');
-  const ctx: Ctx = { db: opts.db, now: opts.now ?? (() => new Date()), logger };
+  const ctx: Ctx = {
+    db: opts.db,
+    now: opts.now ?? (() => new Date()),
+    logger,
+    storage: opts.storage ?? createLocalStorage('uploads'),
+    mailer: opts.mailer ?? noopMailer,
+    publicUrl: (opts.publicUrl ?? 'http://127.0.0.1:8080').replace(/\/+$/, ''),
+  };
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', opts.trustProxy ?? 'loopback');
@@ -88,6 +106,7 @@ export function createApp(opts: AppOptions): CreatedApp {
   }
   app.use('/api', (_req, _res, next) => next(new AppError('not_found', 'There is no such API address.', 404)));
 
+  if (opts.devMailDir) app.use(devMailRouter(opts.devMailDir));
   if (opts.webDir) serveWeb(app, opts.webDir);
   app.use(errorMiddleware(logger));
   return { app, ctx, routes };

@@ -1,8 +1,13 @@
 /** Boots createApp() on a fresh test database, with a movable clock and signed-in agents. */
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 import request from 'supertest';
 import type { Express } from 'express';
 import { createApp, type CreatedApp } from '../../server/app';
 import { DEMO_PASSWORD, DEMO_USERS, seedDemo, type DemoIds } from '../../db/seed';
+import type { Mailer } from '../../server/mail/mailer';
+import { createLocalStorage } from '../../server/storage';
 import { createTestDb, type TestDb } from './test-db';
 
 export const TEST_SESSION_PASSWORD = 'test-session-password-that-is-long-enough-0123456789';
@@ -10,11 +15,14 @@ export const TEST_SESSION_PASSWORD = 'test-session-password-that-is-long-enough-
 export interface TestServer extends CreatedApp {
   testDb: TestDb;
   clock: { now: Date; set(d: Date | string): void; advanceDays(n: number): void };
+  /** A temporary folder the local storage driver writes photos under; removed on close. */
+  uploadsDir: string;
   close(): Promise<void>;
 }
 
-export async function startTestServer(opts: { webDir?: string; signInLimit?: number } = {}): Promise<TestServer> {
+export async function startTestServer(opts: { webDir?: string; signInLimit?: number; mailer?: Mailer } = {}): Promise<TestServer> {
   const testDb = await createTestDb();
+  const uploadsDir = fs.mkdtempSync(path.join(os.tmpdir(), 'frameside-uploads-'));
   const clock = {
     now: new Date(),
     set(d: Date | string) {
@@ -30,8 +38,14 @@ export async function startTestServer(opts: { webDir?: string; signInLimit?: num
     now: () => clock.now,
     webDir: opts.webDir,
     signInLimit: opts.signInLimit ?? 1000,
+    storage: createLocalStorage(uploadsDir),
+    mailer: opts.mailer,
   });
-  return { ...created, testDb, clock, close: () => testDb.drop() };
+  const close = async () => {
+    await testDb.drop();
+    fs.rmSync(uploadsDir, { recursive: true, force: true });
+  };
+  return { ...created, testDb, clock, uploadsDir, close };
 }
 
 /** A supertest agent that keeps cookies, signed in as the given e-mail. */
@@ -48,7 +62,7 @@ export interface DemoServer extends TestServer {
 }
 
 /** A test server with the demo scenario and an agent per demo person, plus a stranger with an apiary of their own. */
-export async function startDemoServer(opts: { signInLimit?: number } = {}): Promise<DemoServer> {
+export async function startDemoServer(opts: { signInLimit?: number; mailer?: Mailer; webDir?: string } = {}): Promise<DemoServer> {
   const s = await startTestServer(opts);
   const ids = await seedDemo(s.testDb.db, { now: s.clock.now });
   const stranger = request.agent(s.app);
