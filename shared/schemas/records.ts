@@ -15,6 +15,8 @@
  *   device clock; the server builds its own with `recordSchemas(ctx.now)`.
  * - Frame counts are checked here against 0…MAX_FRAMES in half-frame steps; the server also
  *   checks them against the hive's boxes (`frameCapacity`), which it alone has at hand.
+ * - Every DTO carries `recordKind` (the record's kind; `kind` is a field of feedings, queen and
+ *   colony events), `createdBy: { id, name }`, `updatedBy` and `version`.
  * - Every DTO carries `cautions` (ids into CAUTIONS in shared/domain/cautions.ts); forms can show
  *   them before saving with `cautionsFor(kind, draft)`.
  */
@@ -556,7 +558,11 @@ export interface PersonRef {
 /** What every record DTO carries besides its own fields. */
 export interface RecordMeta<K extends RecordFormKind> {
   id: string;
-  kind: K;
+  /**
+   * Which kind of record this is. Not `kind`: feedings, queen events and colony events have a
+   * field of their own called `kind` (syrup, seen, split-to…).
+   */
+  recordKind: K;
   /** Set for hive records; null for a Forage check. */
   hiveId: K extends ApiaryRecordKind ? null : string;
   apiaryId: string;
