@@ -13,6 +13,8 @@ spawnChild(bin('tsx'), ['watch', 'server/index.ts'], {
   NODE_ENV: 'development',
   SESSION_PASSWORD: process.env.SESSION_PASSWORD ?? sessionSecret(),
   DEV_ORIGIN: 'http://127.0.0.1:8081',
+  // E-mailed links open the reloading app; the mail itself is kept in .mail/ (http://127.0.0.1:8080/dev/mail).
+  PUBLIC_URL: 'http://127.0.0.1:8081',
 });
 spawnChild(bin('expo'), ['start', '--web', '--port', '8081', '--host', 'lan'], {
   EXPO_NO_TELEMETRY: '1',

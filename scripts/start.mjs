@@ -16,6 +16,8 @@ const child = spawnChild(bin('tsx'), ['server/index.ts'], {
   DATABASE_URL: pg.url,
   PORT: port,
   NODE_ENV: 'production',
+  // A local run keeps e-mail in .mail/ (listed at /dev/mail); a real host sets SMTP_HOST/SMTP_PORT instead.
+  MAIL_FAKE: process.env.MAIL_FAKE ?? 'true',
   SESSION_PASSWORD: process.env.SESSION_PASSWORD ?? sessionSecret(),
 });
 child.on('exit', (code) => process.exit(code ?? 0));

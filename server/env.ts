@@ -21,6 +21,17 @@ const envSchema = z.object({
   SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
   MAIL_FROM: z.string().default('Frameside <no-reply@frameside.test>'),
   PUBLIC_URL: z.string().url().default('http://127.0.0.1:8080'),
+  /**
+   * Run the local fake SMTP server in-process (mail kept as .eml in MAIL_DIR, listed at /dev/mail).
+   * Default: on outside production; `npm start` turns it on for the local demo. Never set it on a real host.
+   */
+  MAIL_FAKE: z.enum(['true', 'false']).optional(),
+  MAIL_DIR: z.string().default('.mail'),
+  /** Scheduled jobs (the weekly due digest) through pg-boss on the same database. */
+  JOBS: z
+    .enum(['true', 'false'])
+    .default('true')
+    .transform((v) => v === 'true'),
   /** `npm run dev` only: the Metro origin allowed to call the API with cookies. */
   DEV_ORIGIN: z.string().url().optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
