@@ -296,7 +296,8 @@ async function hiveCapacity(db: Conn, dto: RecordDto): Promise<number | null> {
 /** Deletes a record, with its audit row (the whole record as it was). */
 export async function deleteRecord(ctx: Ctx, user: SessionUser, kind: RecordFormKind, recordId: string): Promise<void> {
   const { dto, membership } = await requireRecord(ctx, ctx.db, user, kind, recordId);
-  assertMayChange(ctx, membership, user, dto, 'record:delete-others');
+  // Deleting needs its own right even for your own record: a sitter may record and correct, not remove.
+  assertAllowed(ctx, membership, dto.createdBy.id === user.id ? 'record:delete-own' : 'record:delete-others');
   const { t } = RECORD_KINDS_TABLE[kind];
   await ctx.db.transaction(async (tx) => {
     const gone = (await tx.delete(t.table).where(eq(t.id, recordId)).returning({ id: t.id })) as { id: string }[];

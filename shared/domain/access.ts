@@ -33,6 +33,8 @@ export const ACTIONS = [
   'task:create',
   'task:resolve',
   'record:edit-others',
+  /** Deleting a record you wrote yourself: a sitter may correct her entries but not remove them while the owner is away. */
+  'record:delete-own',
   'record:delete-others',
   'export:read',
   'handover:read',

@@ -21,6 +21,26 @@ describe('permission table', () => {
     ['viewer', 'hive:read', true],
     ['viewer', 'record:create:inspection', false],
     ['viewer', 'task:resolve', false],
+    // The roles issue: a sitter marks tasks done, records photos and forage checks, reads the Handover.
+    ['sitter', 'task:resolve', true],
+    ['sitter', 'task:create', false],
+    ['sitter', 'record:create:photo', true],
+    ['sitter', 'record:create:forage-check', true],
+    ['sitter', 'record:create:mite-count', false],
+    ['sitter', 'record:edit-others', false],
+    ['sitter', 'record:delete-own', false],
+    ['sitter', 'handover:read', true],
+    ['sitter', 'members:read', false],
+    ['sitter', 'apiary:update', false],
+    ['keeper', 'members:read', true],
+    ['keeper', 'record:delete-own', true],
+    ['keeper', 'record:delete-others', true],
+    ['keeper', 'handover:read', true],
+    ['keeper', 'activity:read', false],
+    ['owner', 'activity:read', true],
+    ['viewer', 'handover:read', false],
+    ['viewer', 'members:read', false],
+    ['viewer', 'record:create:photo', false],
   ])('%s → %s is %s', (role, action, expected) => {
     expect(can({ role, ...open }, action, now)).toBe(expected);
   });
