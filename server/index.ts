@@ -6,6 +6,7 @@ import { startJobs } from './jobs';
 import { startFakeSmtp } from './mail/fake-smtp';
 import { smtpMailer } from './mail/mailer';
 import { createLogger } from './logger';
+import { createLocalStorage } from './storage';
 
 /** Reads the environment, builds the app and listens. `npm start` runs this after set-up. */
 export async function start() {
@@ -26,6 +27,7 @@ export async function start() {
     secureCookies: env.SECURE_COOKIES,
     trustProxy: env.TRUST_PROXY,
     webDir: env.WEB_DIR,
+    storage: createLocalStorage(env.UPLOADS_DIR),
     devOrigin: env.NODE_ENV === 'development' ? env.DEV_ORIGIN : undefined,
   });
   const jobs = env.JOBS ? await startJobs(ctx, env.DATABASE_URL).catch((err: unknown) => {

@@ -1,0 +1,2 @@
+export { createLocalStorage } from './local';
+export { ObjectNotFoundError, readAll, randomKeyPart, type ObjectStorage } from './storage';
