@@ -1,5 +1,6 @@
 import type { DemoIds } from './seed';
 import type { Db } from './client';
+import { seedRecords } from './seed-records';
 
 export type SeedTx = Parameters<Parameters<Db['transaction']>[0]>[0];
 
@@ -7,4 +8,4 @@ export type SeedTx = Parameters<Parameters<Db['transaction']>[0]>[0];
 export type SeedExtension = (tx: SeedTx, ids: DemoIds, now: Date) => Promise<void>;
 
 /** Each feature adds its own entry here (records, sensor logs, invitations…), in dependency order. */
-export const seedExtensions: SeedExtension[] = [];
+export const seedExtensions: SeedExtension[] = [seedRecords];
