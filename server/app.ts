@@ -81,6 +81,8 @@ export function createApp(opts: AppOptions): CreatedApp {
   );
   app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
   if (opts.devOrigin) app.use('/api', devCors(opts.devOrigin));
+  // An account export (POST /api/import) can run to megabytes; everything else stays small.
+  app.use('/api/import', express.json({ limit: '50mb' }));
   app.use('/api', express.json({ limit: '256kb' }));
 
   const sOpts = sessionOptions(opts.sessionPassword, opts.secureCookies ?? false);
