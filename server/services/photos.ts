@@ -111,7 +111,7 @@ export async function addPhotos(
       const rows = await tx
         .insert(photos)
         .values(
-          incoming.map((f) => ({
+          incoming.map((f, i) => ({
             hiveId,
             inspectionId: input.inspectionId ?? null,
             box: input.box ?? null,
@@ -120,7 +120,8 @@ export async function addPhotos(
             uploadKey: f.key,
             uploadBytes: f.bytes,
             uploadedBy: user.id,
-            createdAt: ctx.now(),
+            // A millisecond apart, so photos sent together keep the order they were sent in.
+            createdAt: new Date(ctx.now().getTime() + i),
             updatedAt: ctx.now(),
           })),
         )
@@ -150,24 +151,6 @@ export async function listPhotos(ctx: Ctx, user: SessionUser, hiveId: string, fi
     .where(where)
     .orderBy(asc(photos.createdAt), asc(photos.id));
   return rows.map((r) => toDto(r.p, r.name));
-}
-
-/** Every photo of the given checks, grouped by check id, in the order taken (for the Hive story). */
-export async function photosByInspection(ctx: Ctx, hiveId: string): Promise<Map<string, PhotoDto[]>> {
-  const rows = await ctx.db
-    .select({ p: photos, name: users.name })
-    .from(photos)
-    .innerJoin(users, eq(users.id, photos.uploadedBy))
-    .where(eq(photos.hiveId, hiveId))
-    .orderBy(asc(photos.createdAt), asc(photos.id));
-  const map = new Map<string, PhotoDto[]>();
-  for (const r of rows) {
-    if (!r.p.inspectionId) continue;
-    const list = map.get(r.p.inspectionId) ?? [];
-    list.push(toDto(r.p, r.name));
-    map.set(r.p.inspectionId, list);
-  }
-  return map;
 }
 
 /** Loads a photo and checks the viewer's access to its hive: unknown photos and strangers both get 404. */

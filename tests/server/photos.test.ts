@@ -93,18 +93,18 @@ describe('frame photos', () => {
 
   it('makes a 1600 px display size and a 320 px thumbnail from a larger photo, keeping the original size', async () => {
     s.clock.set(new Date(s.clock.now.getTime() + 60_000)); // listed after the first
-    const res = await upload(s.as.keeper, ash, [{ buf: makeJpeg(2400, 1200, { gradient: true }), name: 'IMG_0001.JPG' }]);
+    const res = await upload(s.as.keeper, ash, [{ buf: makeJpeg(1800, 900, { gradient: true }), name: 'IMG_0001.JPG' }]);
     expect(res.status).toBe(202);
     const id = res.body.photos[0].id;
     expect(res.body.photos[0].label).toBe('Whole hive');
     const ready = await waitForPhoto(s.as.keeper, ash, id);
-    expect(ready).toMatchObject({ status: 'ready', width: 2400, height: 1200 });
+    expect(ready).toMatchObject({ status: 'ready', width: 1800, height: 900 });
     const dims = async (size: string) => {
       const r = await fetchBytes(s.as.keeper, id, size);
       const d = imageSize(r.body as Buffer);
       return [d.width, d.height];
     };
-    expect(await dims('original')).toEqual([2400, 1200]);
+    expect(await dims('original')).toEqual([1800, 900]);
     expect(await dims('display')).toEqual([1600, 800]);
     expect(await dims('thumb')).toEqual([320, 160]);
   });
@@ -157,5 +157,12 @@ describe('frame photos', () => {
     expect(res.body.photos.map((p: { label: string }) => p.label)).toEqual(['Whole check', 'Whole check', 'Whole check']);
     for (const p of res.body.photos) expect((await waitForPhoto(s.as.keeper, ash, p.id)).status).toBe('ready');
     expect(storedFiles(s.uploadsDir)).toHaveLength(9);
+
+    // The Hive story shows them on the check they belong to, captioned with the frame label.
+    const story = await s.as.mentor.get(`/api/hives/${ash}/story`);
+    expect(story.status).toBe(200);
+    const item = story.body.story.items.find((i: { id: string }) => i.id === inspectionId);
+    expect(item.photos.map((p: { id: string }) => p.id)).toEqual(res.body.photos.map((p: { id: string }) => p.id));
+    expect(item.photos[0]).toMatchObject({ caption: 'Whole check', url: `/api/photos/${res.body.photos[0].id}?size=display` });
   });
 });
