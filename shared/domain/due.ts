@@ -288,7 +288,9 @@ export function deriveTasks(input: DeriveTasksInput): DerivedTask[] {
       const season = seasonOf(base, hemisphere);
       const weekly = addDays(base, I.swarmSeasonInspectionDays);
       const fortnightly = addDays(base, I.inspectionDays);
-      if (seasonOf(weekly, hemisphere) === 'swarm') {
+      // Once winter has come, a visit left over from the autumn becomes a heft: the cluster stays closed.
+      const winterNow = seasonOf(today, hemisphere) === 'winter';
+      if (!winterNow && seasonOf(weekly, hemisphere) === 'swarm') {
         add({
           rule: 'next-inspection',
           title: `Quick check: ${hive.name}`,
@@ -298,7 +300,7 @@ export function deriveTasks(input: DeriveTasksInput): DerivedTask[] {
           sourceRecordId: lastInspection.id,
           keyPart: lastInspection.id,
         });
-      } else if (season !== 'winter' && seasonOf(fortnightly, hemisphere) !== 'winter') {
+      } else if (!winterNow && season !== 'winter' && seasonOf(fortnightly, hemisphere) !== 'winter') {
         add({
           rule: 'next-inspection',
           title: `Quick check: ${hive.name}`,
@@ -315,7 +317,7 @@ export function deriveTasks(input: DeriveTasksInput): DerivedTask[] {
         const heftBase = useEstimate ? lastEstimate.date : base;
         const heftRecordId = useEstimate ? lastEstimate.id : lastInspection.id;
         const due = addMonths(heftBase, 1);
-        const stillWinter = seasonOf(due, hemisphere) === 'winter';
+        const stillWinter = seasonOf(due, hemisphere) === 'winter' || (winterNow && compareDates(due, today) <= 0);
         add({
           rule: stillWinter ? 'winter-heft' : 'next-inspection',
           title: stillWinter ? `Heft or weigh: ${hive.name}` : `First spring Quick check: ${hive.name}`,
@@ -477,8 +479,8 @@ export function deriveTasks(input: DeriveTasksInput): DerivedTask[] {
     if (t.supersOff) {
       const resuper = t.withdrawalUntil ?? (end && d.resuperAfterDays !== null ? addDays(end, d.resuperAfterDays) : end);
       const superAdded = inspections.some((i) => after(i.date, t.startDate) && i.spaceActions.includes('super-added'));
-      // Supers do not go back on in winter; the spring rounds will put them on.
-      if (resuper && !superAdded && seasonOf(resuper, hemisphere) !== 'winter') {
+      // Supers do not go back on in winter (nor once winter has come): the spring rounds will put them on.
+      if (resuper && !superAdded && seasonOf(resuper, hemisphere) !== 'winter' && seasonOf(today, hemisphere) !== 'winter') {
         add({
           rule: 'supers-back-on',
           title: `Supers may go back on: ${hive.name}`,

@@ -80,6 +80,14 @@ describe('seasonOf (swarm season Apr–Jul north, §9; other month boundaries Fr
 });
 
 describe('next inspection by season and hemisphere', () => {
+  it('turns an autumn visit left undone into a winter heft once winter has come (common practice: the cluster stays closed)', () => {
+    const records = { inspections: [inspection('i1', '2025-09-20')] };
+    expect(one(derive('2025-10-10', records), 'next-inspection').dueDate).toBe('2025-10-04');
+    const heft = one(derive('2025-12-01', records), 'winter-heft');
+    expect(heft.dueDate).toBe('2025-10-20');
+    expect(byRule(derive('2025-12-01', records), 'next-inspection')).toHaveLength(0);
+  });
+
   it.each([
     ['north', '2025-06-10', 'next-inspection', '2025-06-17', '7 d in swarm season (§9, Trunch BKA)'],
     ['south', '2025-11-10', 'next-inspection', '2025-11-17', '7 d: November is swarm season in the south (§9 shifted six months)'],
@@ -253,6 +261,12 @@ describe('treatments (§4: the label governs; TREATMENT_DEFAULTS fill gaps; §3 
     const tasks = derive('2025-10-01', { treatments: [t] });
     expect(byRule(tasks, 'supers-back-on')).toHaveLength(0);
     expect(one(tasks, 'mite-recount').dueDate).toBe('2025-11-22');
+  });
+
+  it('drops a supers-back-on task left over once winter has come (north December)', () => {
+    const t: TreatmentRecord = { ...base, id: 't1', activeIngredient: 'thymol', method: 'gel', startDate: '2025-08-01', plannedEndDate: '2025-09-12', supersOff: true, withdrawalUntil: '2025-09-20' };
+    expect(byRule(derive('2025-10-20', { treatments: [t] }), 'supers-back-on')).toHaveLength(1);
+    expect(byRule(derive('2025-12-01', { treatments: [t] }), 'supers-back-on')).toHaveLength(0);
   });
 
   it('uses the withdrawal date from the label when recorded', () => {

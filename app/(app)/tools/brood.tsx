@@ -1,0 +1,1 @@
+export { BroodCalendarScreen as default } from '@/components/tools/brood-calendar-screen';

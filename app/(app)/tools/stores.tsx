@@ -1,0 +1,1 @@
+export { StoresEstimateScreen as default } from '@/components/tools/stores-estimate-screen';

@@ -1,0 +1,1 @@
+export { SyrupMixerScreen as default } from '@/components/tools/syrup-mixer-screen';
