@@ -1,0 +1,1 @@
+export { HiveCreateScreen as default } from '@/components/hives/hive-create-screen';

@@ -1,0 +1,1 @@
+export { ApiaryScreen as default } from '@/components/apiaries/apiary-screen';

@@ -1,0 +1,1 @@
+export { ApiariesScreen as default } from '@/components/apiaries/apiaries-screen';

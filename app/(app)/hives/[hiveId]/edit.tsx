@@ -1,0 +1,1 @@
+export { HiveEditScreen as default } from '@/components/hives/hive-edit-screen';

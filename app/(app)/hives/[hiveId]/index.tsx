@@ -1,0 +1,1 @@
+export { HiveScreen as default } from '@/components/hives/hive-screen';

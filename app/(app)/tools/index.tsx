@@ -1,0 +1,1 @@
+export { ToolsScreen as default } from '@/components/tools/tools-screen';
