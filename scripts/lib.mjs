@@ -105,7 +105,7 @@ export function exportWeb({ force = false } = {}) {
 
 function exportWebLocked({ force }) {
   const inputs = [
-    ...['app', 'components', 'shared', 'assets'].flatMap(listFiles),
+    ...['app', 'components', 'shared', 'assets', 'public'].flatMap(listFiles),
     'app.json',
     'package-lock.json',
     'tsconfig.json',
