@@ -8,6 +8,8 @@ import { Jimp } from 'jimp';
 const [cmd, arg] = process.argv.slice(2);
 const opts = JSON.parse(arg ?? '{}');
 
+const clamp = (v) => Math.max(0, Math.min(255, Math.round(v)));
+
 if (cmd === 'make') {
   // Left half red, right half blue (or a smooth gradient for a photo-like benchmark input).
   const { width, height } = opts;
@@ -17,9 +19,11 @@ if (cmd === 'make') {
     for (let x = 0; x < width; x++) {
       const i = (y * width + x) * 4;
       if (opts.gradient) {
-        data[i] = (x * 255) / width;
-        data[i + 1] = (y * 255) / height;
-        data[i + 2] = ((x + y) * 97) % 256;
+        // Optional noise (hashed per 3 × 3 block) gives the JPEG a photo's entropy and so a photo's file size.
+        const n = opts.noise ? (((Math.imul((x / 3) | 0, 73856093) ^ Math.imul((y / 3) | 0, 19349663)) >>> 0) % (2 * opts.noise)) - opts.noise : 0;
+        data[i] = clamp((x * 255) / width + n);
+        data[i + 1] = clamp((y * 255) / height + n);
+        data[i + 2] = clamp(128 + 100 * Math.sin(x / 300) * Math.cos(y / 200) + n);
       } else if (opts.split && x >= width / 2) {
         data[i] = 0;
         data[i + 2] = 255;

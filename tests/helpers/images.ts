@@ -8,7 +8,7 @@ import piexif from 'piexifjs';
 const TOOL = path.join(__dirname, 'image-tool.mjs');
 
 /** A JPEG of the given size: left half red, right half blue (or a gradient). */
-export function makeJpeg(width: number, height: number, opts: { gradient?: boolean; quality?: number } = {}): Buffer {
+export function makeJpeg(width: number, height: number, opts: { gradient?: boolean; quality?: number; noise?: number } = {}): Buffer {
   return execFileSync(process.execPath, [TOOL, 'make', JSON.stringify({ width, height, split: !opts.gradient, ...opts })], {
     maxBuffer: 64 * 1024 * 1024,
   });
