@@ -105,7 +105,11 @@ const SPECIAL: Record<string, Record<string, Tweak>> = {
   },
 };
 
-export async function seedRecords(tx: SeedTx, ids: DemoIds): Promise<void> {
+/**
+ * Writes the season's records that happened by `now` (a demo seeded in mid-August has no
+ * September feed yet), so nothing in the demo lies in the future of the app's clock.
+ */
+export async function seedRecords(tx: SeedTx, ids: DemoIds, now: Date = new Date()): Promise<void> {
   const keeper = ids.users.keeper;
   const cokeeper = ids.users.cokeeper;
   const hive = (name: string) => ids.hives[name]!;
@@ -284,6 +288,9 @@ export async function seedRecords(tx: SeedTx, ids: DemoIds): Promise<void> {
   forage('orchardRow', { untouched: true, watchedMinutes: 40, occurredAt: at('2026-09-16', '13:00'), note: 'Ivy starting.' });
   forage('quarryHill', { judgement: 'some', occurredAt: at('2026-07-18', '12:00'), note: 'Heather not yet out.' }, cokeeper);
   forage('quarryHill', { judgement: 'flow', occurredAt: at('2026-08-15', '12:00'), note: 'Heather in full flower.' }, cokeeper);
+
+  const past = <T extends { occurredAt: Date | unknown }>(list: T[]) => list.filter((r) => (r.occurredAt as Date).getTime() <= now.getTime());
+  for (const k of Object.keys(rows) as (keyof typeof rows)[]) (rows as Record<string, unknown[]>)[k] = past(rows[k] as { occurredAt: unknown }[]);
 
   // One batch insert per table keeps the seed quick (it runs for every demo test server).
   if (rows.inspections.length) await tx.insert(inspections).values(rows.inspections);
