@@ -69,6 +69,8 @@ const FRAME_FIELDS = [
   ['pollenFrames', 'Pollen frames'],
 ] as const;
 
+const DISH_FIELDS = ['minutesToEmpty', 'watchedMinutes', 'untouched'];
+
 /** Columns that are bookkeeping rather than the record's own fields. */
 const META_COLUMNS = new Set(['id', 'hiveId', 'apiaryId', 'occurredAt', 'note', 'createdBy', 'updatedBy', 'version', 'createdAt', 'updatedAt']);
 
@@ -272,7 +274,11 @@ export async function updateRecord<K extends RecordFormKind>(
     }
     const editable = Object.keys(schemas[kind].update.shape).filter((k) => k !== 'version');
     const current = Object.fromEntries(editable.map((k) => [k, (before as unknown as Record<string, unknown>)[k]]));
-    const parsed = schemas[kind].create.safeParse({ ...current, ...changes });
+    const merged: Record<string, unknown> = { ...current, ...changes };
+    // A Forage check's judgement may have come from its dish: a new dish reading is judged again
+    // unless the edit also says what the keeper judged.
+    if (kind === 'forage-check' && !('judgement' in changes) && DISH_FIELDS.some((f) => f in changes)) merged.judgement = null;
+    const parsed = schemas[kind].create.safeParse(merged);
     if (!parsed.success) throw fromZod(parsed.error);
     const { occurredAt, note, ...fields } = parsed.data as Record<string, unknown> & { occurredAt: string; note: string };
     const capacity = await hiveCapacity(tx, before);

@@ -224,6 +224,13 @@ describe('hive records', () => {
       expect(tooMany.status).toBe(400);
       expect(tooMany.body.error.fields.framesBees).toMatch(/more than this hive’s boxes hold \(10 frames\)/);
     });
+    it('judges a Forage check again when its dish reading is edited (≤ 30 min = dearth, common practice; TRADE-REFERENCES §9)', async () => {
+      const c = await s.as.keeper.post(`/api/apiaries/${orchard}/forage-checks`).send({ minutesToEmpty: 20 });
+      expect(c.body.forageCheck.judgement).toBe('dearth');
+      const e = await s.as.keeper.patch(`/api/forage-checks/${c.body.forageCheck.id}`).send({ version: 1, minutesToEmpty: 50 });
+      expect(e.status).toBe(200);
+      expect(e.body.forageCheck).toMatchObject({ minutesToEmpty: 50, judgement: 'some' });
+    });
   });
 
   describe('who may do what', () => {
