@@ -14,6 +14,7 @@ import { ListRow } from '@/components/ui/list-row';
 import { LoadError, Loading } from '@/components/ui/query-state';
 import { Screen } from '@/components/ui/screen';
 import { Text } from '@/components/ui/text';
+import { ForageCheckButton } from '@/components/records/forage-check-button';
 import { accessLine, canIn, hiveCountLine } from './membership';
 
 /** One apiary's hives. Writers (owner, keeper) get "Add hive" at the bottom. */
@@ -52,6 +53,7 @@ export function ApiaryScreen() {
             <Text tone="muted">
               {hiveCountLine(apiary.data.hiveCount)} · You: {accessLine(apiary.data, now)}
             </Text>
+            <ForageCheckButton apiary={apiary.data} />
           </View>
         )}
 

@@ -1,0 +1,1 @@
+export { ForageCheckScreen as default } from '@/components/records/forage-check-screen';

@@ -1,0 +1,1 @@
+export { QuickCheckScreen as default } from '@/components/records/quick-check-screen';

@@ -1,0 +1,1 @@
+export { ColonyEventScreen as default } from '@/components/records/colony-event-screen';

@@ -1,0 +1,1 @@
+export { FeedingScreen as default } from '@/components/records/feeding-screen';

@@ -1,0 +1,1 @@
+export { HarvestScreen as default } from '@/components/records/harvest-screen';

@@ -1,0 +1,1 @@
+export { MiteCountScreen as default } from '@/components/records/mite-count-screen';

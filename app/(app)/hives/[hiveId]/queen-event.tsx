@@ -1,0 +1,1 @@
+export { QueenEventScreen as default } from '@/components/records/queen-event-screen';

@@ -1,0 +1,1 @@
+export { TreatmentScreen as default } from '@/components/records/treatment-screen';

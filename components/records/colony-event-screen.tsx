@@ -1,0 +1,106 @@
+import { useLocalSearchParams } from 'expo-router';
+import { View } from 'react-native';
+import { COLONY_EVENT_KINDS, type ColonyEventKind } from '@/shared/domain/records';
+import { colonyEventCreateSchema, RECORD_LIMITS, type ColonyEventCreateInput } from '@/shared/schemas/records';
+import { useHiveQuery, useHivesQuery } from '@/components/api/hives';
+import { useNow } from '@/components/layout/use-now';
+import { useTheme } from '@/components/theme/use-theme';
+import { ChoiceChips } from '@/components/ui/choice-chips';
+import { LoadError, Loading } from '@/components/ui/query-state';
+import { Screen } from '@/components/ui/screen';
+import { Text } from '@/components/ui/text';
+import { DraftRestored } from './draft-restored';
+import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
+import { COLONY_EVENT_LABELS, optionsOf } from './record-labels';
+import { useRecordForm, type TimedValues } from './use-record-form';
+
+export interface ColonyEventValues extends TimedValues {
+  kind: ColonyEventKind | null;
+  /** The other hive of a split or combine; 'none' when it is not in Frameside. */
+  otherHiveId: string | null;
+  note: string;
+}
+
+/** Events that involve a second colony. */
+const WITH_OTHER: readonly ColonyEventKind[] = ['split-from', 'split-to', 'combined'];
+
+export function colonyEventBody(v: ColonyEventValues, occurredAt: string): ColonyEventCreateInput {
+  const other = v.kind && WITH_OTHER.includes(v.kind) && v.otherHiveId && v.otherHiveId !== 'none' ? v.otherHiveId : null;
+  // An unanswered kind is left for the schema to name.
+  return { occurredAt, note: v.note.trim(), kind: (v.kind ?? undefined) as ColonyEventKind, otherHiveId: other };
+}
+
+const kindOptions = optionsOf(COLONY_EVENT_KINDS, COLONY_EVENT_LABELS);
+const OTHER_QUESTION: Partial<Record<ColonyEventKind, string>> = {
+  'split-from': 'Split from which hive?',
+  'split-to': 'Split into which hive?',
+  combined: 'Combined with which hive?',
+};
+
+/** Colony event: /hives/[hiveId]/colony-event. */
+export function ColonyEventScreen() {
+  const { hiveId } = useLocalSearchParams<{ hiveId: string }>();
+  const hive = useHiveQuery(hiveId);
+  if (hive.isPending || hive.isError) {
+    return (
+      <Screen title="Colony event">
+        {hive.isPending ? <Loading label="Loading the hive…" /> : <LoadError error={hive.error} onRetry={() => void hive.refetch()} />}
+      </Screen>
+    );
+  }
+  return <ColonyEventForm hiveId={hive.data.id} hiveName={hive.data.name} apiaryId={hive.data.apiaryId} />;
+}
+
+function ColonyEventForm({ hiveId, hiveName, apiaryId }: { hiveId: string; hiveName: string; apiaryId: string }) {
+  const t = useTheme();
+  const now = useNow();
+  const hives = useHivesQuery(apiaryId);
+  const form = useRecordForm({
+    kind: 'colony-event',
+    ownerId: hiveId,
+    initial: (): ColonyEventValues => ({ visitTime: 'now', occurredAt: null, kind: null, otherHiveId: null, note: '' }),
+    build: colonyEventBody,
+    schema: colonyEventCreateSchema,
+    leaveTo: { pathname: '/hives/[hiveId]', params: { hiveId } },
+  });
+  const { draft, set } = form;
+  const v = draft.values;
+  if (!v) return null;
+  const question = v.kind ? OTHER_QUESTION[v.kind] : undefined;
+  const otherOptions = [
+    ...(hives.data ?? []).filter((h) => h.id !== hiveId).map((h) => ({ value: h.id, label: h.name })),
+    { value: 'none', label: 'Not in Frameside' },
+  ];
+
+  return (
+    <RecordFormScreen
+      title="Colony event"
+      subject={hiveName}
+      backHref={{ pathname: '/hives/[hiveId]', params: { hiveId } }}
+      testID="colony-event-screen"
+      intro={<DraftRestored draft={draft} testID="colony-event" />}
+      left={
+        <FormGroup title="What happened">
+          <ChoiceChips field="kind" label="The colony" hideLabel options={kindOptions} value={v.kind} onChange={(kind) => set({ kind })} />
+          {question ? (
+            <View style={{ gap: t.space.xs }}>
+              <ChoiceChips field="otherHiveId" label={question} options={otherOptions} value={v.otherHiveId} onChange={(otherHiveId) => set({ otherHiveId })} />
+              {hives.isPending ? <Text tone="muted">Loading this apiary’s hives…</Text> : null}
+            </View>
+          ) : null}
+        </FormGroup>
+      }
+      right={
+        <>
+          <FormGroup title="When">
+            <VisitTimeField label="When" value={v.visitTime} now={now} fixedAt={v.occurredAt} onChange={(visitTime) => set({ visitTime, occurredAt: null })} />
+          </FormGroup>
+          <FormGroup title="Note">
+            <NoteField value={v.note} onChange={(note) => set({ note })} max={RECORD_LIMITS.noteChars} />
+          </FormGroup>
+        </>
+      }
+      bottomBar={<SaveBar testID="colony-event-save" label="Save colony event" onSave={form.save} saving={form.saving} error={form.error} />}
+    />
+  );
+}

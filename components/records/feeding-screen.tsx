@@ -1,0 +1,230 @@
+import { useLocalSearchParams } from 'expo-router';
+import { View } from 'react-native';
+import { cautionsFor } from '@/shared/domain/cautions';
+import { FEEDER_TYPES, FEEDING_KINDS, SYRUP_BASES, SYRUP_RATIOS, type FeederType, type FeedingKind, type SyrupBasis, type SyrupRatio } from '@/shared/domain/records';
+import { gallonsToLitres, kgToLb, lbToKg, litresToGallons } from '@/shared/domain/units';
+import { feedingCreateSchema, RECORD_LIMITS, type FeedingCreateInput } from '@/shared/schemas/records';
+import { useHiveQuery } from '@/components/api/hives';
+import { useNow } from '@/components/layout/use-now';
+import { useTheme } from '@/components/theme/use-theme';
+import { ChoiceChips } from '@/components/ui/choice-chips';
+import { LoadError, Loading } from '@/components/ui/query-state';
+import { Screen } from '@/components/ui/screen';
+import { Stepper } from '@/components/ui/stepper';
+import { Text } from '@/components/ui/text';
+import { CautionList } from './caution-list';
+import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
+import { FEEDER_TYPE_LABELS, FEEDING_KIND_LABELS, optionsOf, SYRUP_BASIS_LABELS, SYRUP_RATIO_LABELS } from './record-labels';
+import { DraftRestored } from './draft-restored';
+import { useRecordForm, type TimedValues } from './use-record-form';
+import { useUnits, type UnitSystem } from './use-units';
+
+/** Syrup is measured by volume (L or US gal), solid feed by weight (kg or lb). */
+type Measure = 'volume' | 'weight';
+
+export interface FeedingValues extends TimedValues {
+  kind: FeedingKind;
+  ratio: SyrupRatio;
+  basis: SyrupBasis;
+  /** In the units shown when it was entered (`units`): L or US gal for syrup, kg or lb otherwise. */
+  amount: number;
+  units: UnitSystem;
+  feederType: FeederType | null;
+  note: string;
+}
+
+const measureOf = (kind: FeedingKind): Measure => (kind === 'syrup' ? 'volume' : 'weight');
+
+/** Stepper steps in the shown unit: ½ L, ¼ US gal (≈ 0.95 L), ½ kg, 1 lb (≈ 0.45 kg). Frameside's own choice. */
+const STEP: Record<Measure, Record<UnitSystem, number>> = {
+  volume: { metric: 0.5, us: 0.25 },
+  weight: { metric: 0.5, us: 1 },
+};
+
+const UNIT_WORD: Record<Measure, Record<UnitSystem, string>> = {
+  volume: { metric: 'L', us: 'US gal' },
+  weight: { metric: 'kg', us: 'lb' },
+};
+
+/** Starting amounts: a 4 L (≈ 1 US gal) feeder of syrup, a 1 kg (2 lb) block of fondant or patty. */
+const DEFAULT_AMOUNT: Record<Measure, Record<UnitSystem, number>> = {
+  volume: { metric: 4, us: 1 },
+  weight: { metric: 1, us: 2 },
+};
+
+const snap = (x: number, step: number) => Math.max(step, Math.round(x / step) * step);
+const round2 = (x: number) => Math.round(x * 100) / 100;
+
+/** The amount in SI (L or kg), as stored. */
+export function amountInSi(amount: number, measure: Measure, units: UnitSystem): number {
+  if (units === 'metric') return amount;
+  return round2(measure === 'volume' ? gallonsToLitres(amount) : lbToKg(amount));
+}
+
+/** The same amount in the other units, snapped to that unit's step. */
+function convertAmount(amount: number, measure: Measure, from: UnitSystem, to: UnitSystem): number {
+  if (from === to) return amount;
+  const si = amountInSi(amount, measure, from);
+  const shown = to === 'metric' ? si : measure === 'volume' ? litresToGallons(si) : kgToLb(si);
+  return snap(shown, STEP[measure][to]);
+}
+
+function maxAmount(measure: Measure, units: UnitSystem): number {
+  const siMax = measure === 'volume' ? RECORD_LIMITS.maxAmountL : RECORD_LIMITS.maxAmountKg;
+  const shown = units === 'metric' ? siMax : measure === 'volume' ? litresToGallons(siMax) : kgToLb(siMax);
+  const step = STEP[measure][units];
+  return Math.floor(shown / step) * step;
+}
+
+export function feedingBody(v: FeedingValues, occurredAt: string): FeedingCreateInput {
+  const measure = measureOf(v.kind);
+  const si = amountInSi(v.amount, measure, v.units);
+  const syrup = v.kind === 'syrup';
+  return {
+    occurredAt,
+    note: v.note.trim(),
+    kind: v.kind,
+    ratio: syrup ? v.ratio : null,
+    basis: syrup ? v.basis : null,
+    amountL: measure === 'volume' ? si : null,
+    amountKg: measure === 'weight' ? si : null,
+    feederType: v.feederType,
+  };
+}
+
+const kindOptions = optionsOf(FEEDING_KINDS, FEEDING_KIND_LABELS);
+const ratioOptions = optionsOf(SYRUP_RATIOS, SYRUP_RATIO_LABELS);
+const basisOptions = optionsOf(SYRUP_BASES, SYRUP_BASIS_LABELS);
+const feederOptions = optionsOf(FEEDER_TYPES, FEEDER_TYPE_LABELS);
+const unitOptions = [
+  { value: 'metric' as const, label: 'Litres and kg' },
+  { value: 'us' as const, label: 'US gallons and lb' },
+];
+
+/** Feeding: /hives/[hiveId]/feeding. */
+export function FeedingScreen() {
+  const { hiveId } = useLocalSearchParams<{ hiveId: string }>();
+  const hive = useHiveQuery(hiveId);
+  if (hive.isPending || hive.isError) {
+    return (
+      <Screen title="Feeding">
+        {hive.isPending ? <Loading label="Loading the hive…" /> : <LoadError error={hive.error} onRetry={() => void hive.refetch()} />}
+      </Screen>
+    );
+  }
+  return <FeedingForm hiveId={hive.data.id} hiveName={hive.data.name} />;
+}
+
+function FeedingForm({ hiveId, hiveName }: { hiveId: string; hiveName: string }) {
+  const t = useTheme();
+  const now = useNow();
+  const [preferredUnits, setPreferredUnits] = useUnits();
+  const form = useRecordForm({
+    kind: 'feeding',
+    ownerId: hiveId,
+    initial: (): FeedingValues => ({
+      visitTime: 'now',
+      occurredAt: null,
+      kind: 'syrup',
+      ratio: '1:1',
+      basis: 'weight',
+      amount: DEFAULT_AMOUNT.volume[preferredUnits],
+      units: preferredUnits,
+      feederType: null,
+      note: '',
+    }),
+    build: feedingBody,
+    schema: feedingCreateSchema,
+    leaveTo: { pathname: '/hives/[hiveId]', params: { hiveId } },
+  });
+  const { draft, set } = form;
+  const v = draft.values;
+  if (!v) return null;
+  const measure = measureOf(v.kind);
+  const unit = UNIT_WORD[measure][v.units];
+  const si = amountInSi(v.amount, measure, v.units);
+
+  const left = (
+    <>
+      <FormGroup title="What was fed">
+        <ChoiceChips
+          field="kind"
+          label="Feed"
+          options={kindOptions}
+          value={v.kind}
+          onChange={(kind) =>
+            set((x) => {
+              const m = measureOf(kind);
+              return m === measureOf(x.kind) ? { ...x, kind } : { ...x, kind, amount: DEFAULT_AMOUNT[m][x.units] };
+            })
+          }
+        />
+        {v.kind === 'syrup' ? (
+          <>
+            <ChoiceChips field="ratio" label="Sugar to water" options={ratioOptions} value={v.ratio} onChange={(ratio) => set({ ratio })} />
+            <ChoiceChips field="basis" label="Mixed" options={basisOptions} value={v.basis} onChange={(basis) => set({ basis })} />
+          </>
+        ) : null}
+      </FormGroup>
+      <FormGroup title="How much">
+        <ChoiceChips
+          field="units"
+          label="Units"
+          options={unitOptions}
+          value={v.units}
+          onChange={(units) => {
+            setPreferredUnits(units);
+            set((x) => ({ ...x, units, amount: convertAmount(x.amount, measureOf(x.kind), x.units, units) }));
+          }}
+        />
+        <Stepper
+          field="amount"
+          label={measure === 'volume' ? 'Syrup given' : 'Feed given'}
+          unit={unit}
+          value={v.amount}
+          min={STEP[measure][v.units]}
+          max={maxAmount(measure, v.units)}
+          step={STEP[measure][v.units]}
+          decreaseLabel={`Less, by ${STEP[measure][v.units]} ${unit}`}
+          increaseLabel={`More, by ${STEP[measure][v.units]} ${unit}`}
+          onChange={(amount) => set({ amount })}
+        />
+        {v.units === 'us' ? (
+          <Text tone="muted" testID="feeding-stored-amount">{`Stored as ${si} ${measure === 'volume' ? 'L' : 'kg'}.`}</Text>
+        ) : null}
+      </FormGroup>
+    </>
+  );
+
+  const right = (
+    <>
+      <FormGroup title="Feeder">
+        <ChoiceChips field="feederType" label="Feeder" hideLabel options={feederOptions} value={v.feederType} onChange={(feederType) => set({ feederType })} />
+      </FormGroup>
+      <FormGroup title="When">
+        <VisitTimeField label="Fed" value={v.visitTime} now={now} fixedAt={v.occurredAt} onChange={(visitTime) => set({ visitTime, occurredAt: null })} />
+      </FormGroup>
+      <FormGroup title="Note">
+        <NoteField value={v.note} onChange={(note) => set({ note })} max={RECORD_LIMITS.noteChars} />
+      </FormGroup>
+    </>
+  );
+
+  return (
+    <RecordFormScreen
+      title="Feeding"
+      subject={hiveName}
+      backHref={{ pathname: '/hives/[hiveId]', params: { hiveId } }}
+      testID="feeding-screen"
+      intro={
+        <View style={{ gap: t.space.sm }}>
+          <DraftRestored draft={draft} testID="feeding" />
+          <CautionList ids={cautionsFor('feeding', { feederType: v.feederType })} />
+        </View>
+      }
+      left={left}
+      right={right}
+      bottomBar={<SaveBar testID="feeding-save" label="Save feeding" onSave={form.save} saving={form.saving} error={form.error} />}
+    />
+  );
+}

@@ -1,0 +1,160 @@
+import { useLocalSearchParams } from 'expo-router';
+import { View } from 'react-native';
+import { MITE_METHODS, miteLoad, type MiteLoad, type MiteMethod } from '@/shared/domain/mites';
+import { miteCountCreateSchema, RECORD_LIMITS, type MiteCountCreateInput } from '@/shared/schemas/records';
+import { useHiveQuery } from '@/components/api/hives';
+import { useNow } from '@/components/layout/use-now';
+import { useTheme } from '@/components/theme/use-theme';
+import { ChoiceChips } from '@/components/ui/choice-chips';
+import { Notice } from '@/components/ui/notice';
+import { LoadError, Loading } from '@/components/ui/query-state';
+import { Screen } from '@/components/ui/screen';
+import { Stepper } from '@/components/ui/stepper';
+import { Text } from '@/components/ui/text';
+import { DraftRestored } from './draft-restored';
+import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
+import { MITE_METHOD_LABELS, optionsOf } from './record-labels';
+import { useRecordForm, type TimedValues } from './use-record-form';
+
+export interface MiteCountValues extends TimedValues {
+  method: MiteMethod;
+  beesSampled: number;
+  mites: number;
+  days: number;
+  note: string;
+}
+
+/** The sample steps in tens of bees: nobody counts a ½-cup sample bee by bee. */
+const BEES_STEP = 10;
+
+export function miteCountBody(v: MiteCountValues, occurredAt: string): MiteCountCreateInput {
+  const board = v.method === 'sticky-board';
+  return {
+    occurredAt,
+    note: v.note.trim(),
+    method: v.method,
+    beesSampled: board ? null : v.beesSampled,
+    mites: v.mites,
+    days: board ? v.days : null,
+  };
+}
+
+/** The load for the draft, or null while it cannot be worked out (e.g. more mites than bees). */
+export function draftLoad(v: MiteCountValues): MiteLoad | null {
+  try {
+    return v.method === 'sticky-board'
+      ? miteLoad({ method: v.method, mites: v.mites, days: v.days })
+      : miteLoad({ method: v.method, mites: v.mites, beesSampled: v.beesSampled });
+  } catch {
+    return null;
+  }
+}
+
+const LEVEL_WORDS = { low: 'Low', watch: 'Watch', act: 'Act' } as const;
+const methodOptions = optionsOf(MITE_METHODS, MITE_METHOD_LABELS);
+const fmt = (x: number) => (Math.round(x * 10) / 10).toLocaleString(undefined, { maximumFractionDigits: 1 });
+
+/** Mite count: /hives/[hiveId]/mite-count. */
+export function MiteCountScreen() {
+  const { hiveId } = useLocalSearchParams<{ hiveId: string }>();
+  const hive = useHiveQuery(hiveId);
+  if (hive.isPending || hive.isError) {
+    return (
+      <Screen title="Mite count">
+        {hive.isPending ? <Loading label="Loading the hive…" /> : <LoadError error={hive.error} onRetry={() => void hive.refetch()} />}
+      </Screen>
+    );
+  }
+  return <MiteCountForm hiveId={hive.data.id} hiveName={hive.data.name} />;
+}
+
+function MiteCountForm({ hiveId, hiveName }: { hiveId: string; hiveName: string }) {
+  const t = useTheme();
+  const now = useNow();
+  const form = useRecordForm({
+    kind: 'mite-count',
+    ownerId: hiveId,
+    initial: (): MiteCountValues => ({
+      visitTime: 'now',
+      occurredAt: null,
+      method: 'alcohol-wash',
+      beesSampled: RECORD_LIMITS.defaultBeesSampled,
+      mites: 0,
+      days: 3,
+      note: '',
+    }),
+    build: miteCountBody,
+    schema: miteCountCreateSchema,
+    leaveTo: { pathname: '/hives/[hiveId]', params: { hiveId } },
+  });
+  const { draft, set } = form;
+  const v = draft.values;
+  if (!v) return null;
+  const board = v.method === 'sticky-board';
+  const load = draftLoad(v);
+
+  const result = load ? (
+    <Notice tone={load.level === 'low' ? 'good' : load.level === 'act' ? 'warning' : 'info'} title={`${LEVEL_WORDS[load.level]}: ${board ? `${fmt(load.perDay ?? 0)} mites a day` : `${fmt(load.perHundredBees ?? 0)} mites per 100 bees`}`} testID="mite-load">
+      {load.basis}
+    </Notice>
+  ) : (
+    <Notice tone="warning" title="Check the counts" testID="mite-load">
+      A sample cannot hold more mites than bees.
+    </Notice>
+  );
+
+  const left = (
+    <>
+      <FormGroup title="Count">
+        <ChoiceChips field="method" label="Method" options={methodOptions} value={v.method} onChange={(method) => set({ method })} />
+        {board ? (
+          <Stepper field="days" label="Days the board was in" value={v.days} min={1} max={RECORD_LIMITS.maxBoardDays} decreaseLabel="One day fewer" increaseLabel="One day more" onChange={(days) => set({ days })} />
+        ) : (
+          <Stepper
+            field="beesSampled"
+            label="Bees sampled"
+            hint="About 300 bees fill ½ US cup."
+            value={v.beesSampled}
+            min={BEES_STEP}
+            max={RECORD_LIMITS.maxBeesSampled}
+            step={BEES_STEP}
+            decreaseLabel="Ten bees fewer"
+            increaseLabel="Ten bees more"
+            onChange={(beesSampled) => set({ beesSampled })}
+          />
+        )}
+        <Stepper field="mites" label="Mites counted" value={v.mites} min={0} max={RECORD_LIMITS.maxMites} decreaseLabel="One mite fewer" increaseLabel="One mite more" onChange={(mites) => set({ mites })} />
+        {result}
+      </FormGroup>
+    </>
+  );
+
+  const right = (
+    <>
+      <FormGroup title="When">
+        <VisitTimeField label="Counted" value={v.visitTime} now={now} fixedAt={v.occurredAt} onChange={(visitTime) => set({ visitTime, occurredAt: null })} />
+      </FormGroup>
+      <FormGroup title="Note">
+        <NoteField value={v.note} onChange={(note) => set({ note })} max={RECORD_LIMITS.noteChars} />
+      </FormGroup>
+    </>
+  );
+
+  return (
+    <RecordFormScreen
+      title="Mite count"
+      subject={hiveName}
+      backHref={{ pathname: '/hives/[hiveId]', params: { hiveId } }}
+      testID="mite-count-screen"
+      intro={
+        <View style={{ gap: t.space.sm }}>
+          <DraftRestored draft={draft} testID="mite-count" />
+          {board ? <Text tone="muted">Natural mite fall on a board tracks the colony’s load loosely: confirm a high count with a wash.</Text> : null}
+        </View>
+      }
+      left={left}
+      right={right}
+      bottomBar={<SaveBar testID="mite-count-save" label="Save mite count" onSave={form.save} saving={form.saving} error={form.error} />}
+    />
+  );
+}
