@@ -121,11 +121,14 @@ export function idempotency(ctx: Ctx, opts: IdempotencyOptions = {}): RequestHan
 
 /**
  * Stores a 2xx JSON answer against the claim before it is sent, so a retry that arrives the
- * moment the first answer lands already finds it; any other answer frees the key.
+ * moment the first answer lands already finds it; any other answer frees the key. The client
+ * going away mid-request changes nothing: the handler still answers, the answer is still stored,
+ * and the retry gets it (the "first answer lost" case).
  */
 function settleOnAnswer(ctx: Ctx, res: Response, rowId: string) {
   let settled = false;
   const json = res.json.bind(res);
+  const end = res.end.bind(res) as (...args: unknown[]) => Response;
   res.json = ((body: unknown) => {
     settled = true;
     const ok = res.statusCode >= 200 && res.statusCode < 300;
@@ -144,8 +147,17 @@ function settleOnAnswer(ctx: Ctx, res: Response, rowId: string) {
     );
     return res;
   }) as Response['json'];
-  // An answer that was not JSON (or no answer at all) must not leave the key claimed forever.
-  res.on('close', () => {
-    if (!settled) void ctx.db.delete(idempotencyKeys).where(eq(idempotencyKeys.id, rowId)).catch(() => undefined);
-  });
+  // An answer that is not JSON cannot be replayed: free the key rather than leave it claimed.
+  res.end = ((...args: unknown[]) => {
+    if (!settled) {
+      settled = true;
+      void ctx.db
+        .delete(idempotencyKeys)
+        .where(eq(idempotencyKeys.id, rowId))
+        .catch(() => undefined)
+        .then(() => end(...args));
+      return res;
+    }
+    return end(...args);
+  }) as Response['end'];
 }

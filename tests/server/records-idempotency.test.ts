@@ -4,9 +4,13 @@
  * another payload, 409 while the first copy is still in flight.
  */
 import { randomUUID } from 'node:crypto';
+import net from 'node:net';
+import type { AddressInfo } from 'node:net';
+import request from 'supertest';
 import { count, eq } from 'drizzle-orm';
 import { auditLog, idempotencyKeys, inspections } from '../../db/schema';
 import { canonicalJson } from '../../server/middleware/idempotency';
+import { DEMO_PASSWORD, DEMO_USERS } from '../../db/seed';
 import { startDemoServer, type DemoServer } from '../helpers/server';
 
 describe('Idempotency-Key on record creates', () => {
@@ -44,6 +48,45 @@ describe('Idempotency-Key on record creates', () => {
     const retry = await s.as.keeper.post(`/api/hives/${ash}/inspections`).set('Idempotency-Key', key).send(reordered);
     expect(retry.status).toBe(201);
     expect(await inspectionsOfAsh()).toBe(n + 1);
+  });
+
+  it('replays after a real lost answer: the client hung up before the server answered', async () => {
+    const signIn = await request(s.app).post('/api/auth/sign-in').send({ email: DEMO_USERS.keeper.email, password: DEMO_PASSWORD });
+    const cookie = String(signIn.headers['set-cookie']![0]).split(';')[0];
+    const server = s.app.listen(0, '127.0.0.1');
+    try {
+      await new Promise((r) => server.once('listening', r));
+      const { port } = server.address() as AddressInfo;
+      const key = randomUUID();
+      const body = JSON.stringify(check);
+      const n = await inspectionsOfAsh();
+      // Send the whole request, then drop the connection without reading a byte of the answer.
+      await new Promise<void>((resolve, reject) => {
+        const sock = net.connect(port, '127.0.0.1', () => {
+          sock.write(
+            `POST /api/hives/${ash}/inspections HTTP/1.1\r\nHost: 127.0.0.1\r\nContent-Type: application/json\r\n` +
+              `Content-Length: ${Buffer.byteLength(body)}\r\nCookie: ${cookie}\r\nIdempotency-Key: ${key}\r\n\r\n${body}`,
+            () => {
+              sock.destroy();
+              resolve();
+            },
+          );
+        });
+        sock.on('error', reject);
+      });
+      // The server still finishes the write and stores its answer.
+      for (let i = 0; i < 100; i++) {
+        const [row] = await s.testDb.db.select({ status: idempotencyKeys.status }).from(idempotencyKeys).where(eq(idempotencyKeys.key, key));
+        if (row?.status) break;
+        await new Promise((r) => setTimeout(r, 20));
+      }
+      const retry = await s.as.keeper.post(`/api/hives/${ash}/inspections`).set('Idempotency-Key', key).send(check);
+      expect(retry.status).toBe(201);
+      expect(retry.headers['idempotent-replayed']).toBe('true');
+      expect(await inspectionsOfAsh()).toBe(n + 1);
+    } finally {
+      await new Promise((r) => server.close(r));
+    }
   });
 
   it('answers 422 for the same key with a different payload, and stores nothing more', async () => {
