@@ -101,7 +101,7 @@ const creator = alias(users, 'record_creator');
 const updater = alias(users, 'record_updater');
 
 /** Loads records with their authors' names and their apiary, newest first. */
-async function loadRows(db: Conn, kind: RecordFormKind, where: SQL | undefined) {
+async function loadRows(db: Conn, kind: RecordFormKind, where: SQL | undefined, limit = 500) {
   const { t, scope } = RECORD_KINDS_TABLE[kind];
   const apiaryCol = scope === 'hive' ? hives.apiaryId : t.parent;
   let q = db
@@ -117,7 +117,7 @@ async function loadRows(db: Conn, kind: RecordFormKind, where: SQL | undefined) 
     .leftJoin(updater, eq(updater.id, t.updatedBy))
     .$dynamic();
   if (scope === 'hive') q = q.innerJoin(hives, eq(hives.id, t.parent));
-  const rows = await q.where(where).orderBy(desc(t.occurredAt), desc(t.createdAt));
+  const rows = await q.where(where).orderBy(desc(t.occurredAt), desc(t.createdAt)).limit(limit);
   return rows.map((x) => {
     return toDto(kind, x.r as Row, x.apiaryId as string, x.creatorName, x.updaterId && x.updaterName ? { id: x.updaterId, name: x.updaterName } : null);
   });
@@ -215,7 +215,7 @@ export async function createRecord<K extends RecordFormKind>(
   });
 }
 
-/** A hive's (or apiary's) records of one kind, newest first; `season` keeps one calendar year (UTC). */
+/** A hive's (or apiary's) records of one kind, newest first; `season` keeps one calendar year (UTC), `limit` the newest N (at most 500). */
 export async function listRecords<K extends RecordFormKind>(ctx: Ctx, user: SessionUser, kind: K, parentId: string, q: RecordListQuery): Promise<RecordDto<K>[]> {
   await requireParent(ctx, user, kind, parentId, 'hive:read');
   const { t } = RECORD_KINDS_TABLE[kind];
@@ -223,7 +223,7 @@ export async function listRecords<K extends RecordFormKind>(ctx: Ctx, user: Sess
   if (q.season !== undefined) {
     conds.push(gte(t.occurredAt, new Date(Date.UTC(q.season, 0, 1))), lt(t.occurredAt, new Date(Date.UTC(q.season + 1, 0, 1))));
   }
-  return (await loadRows(ctx.db, kind, and(...conds))) as RecordDto<K>[];
+  return (await loadRows(ctx.db, kind, and(...conds), q.limit)) as RecordDto<K>[];
 }
 
 /**

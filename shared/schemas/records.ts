@@ -535,13 +535,22 @@ export interface RecordFieldsByKind {
   'forage-check': ForageCheck;
 }
 
-/** GET list query: `?season=YYYY` (calendar year of occurredAt). Lists come back newest first. */
+/**
+ * GET list query: `?season=YYYY` (calendar year of occurredAt, UTC) and `?limit=N` (1–500;
+ * `limit=1` is the previous check a Quick check starts from). Lists come back newest first.
+ */
 export const recordListQuerySchema = z
   .object({
     season: z
       .string({ message: 'The season must be a year, like 2026.' })
       .regex(/^\d{4}$/, { message: 'The season must be a year, like 2026.' })
       .transform(Number)
+      .optional(),
+    limit: z
+      .string({ message: 'The limit must be a whole number from 1 to 500.' })
+      .regex(/^\d{1,3}$/, { message: 'The limit must be a whole number from 1 to 500.' })
+      .transform(Number)
+      .refine((n) => n >= 1 && n <= 500, { message: 'The limit must be a whole number from 1 to 500.' })
       .optional(),
   })
   .strict();

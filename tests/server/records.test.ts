@@ -176,6 +176,10 @@ describe('hive records', () => {
       expect(times).toEqual([...times].sort().reverse());
       const season = await s.as.keeper.get(`/api/hives/${elder}/queen-events?season=2025`);
       expect(season.body.records.map((r: { occurredAt: string }) => r.occurredAt)).toEqual(['2025-06-01T10:00:00.000Z']);
+      const last = await s.as.keeper.get(`/api/hives/${elder}/queen-events?limit=1`);
+      expect(last.body.records).toHaveLength(1);
+      expect(last.body.records[0].occurredAt).toBe(times[0]);
+      expect((await s.as.keeper.get(`/api/hives/${elder}/queen-events?limit=0`)).status).toBe(400);
     });
 
     it('writes an audit row for a create, an edit and a delete, in the record’s apiary', async () => {
