@@ -18,6 +18,7 @@ import { HiveStatusBadge } from './hive-status-badge';
 import { HiveQuickCheckButton, HiveRecordActions } from './hive-record-actions';
 import { QueenSummary } from './queen-summary';
 import { HiveStory } from './hive-story';
+import { HivePhotos } from '@/components/photos/hive-photos';
 
 /**
  * One hive: what it is (boxes, queen, status) and, beside it on a wide screen, its records.
@@ -55,6 +56,7 @@ export function HiveScreen() {
           <Text>{h.note}</Text>
         </Section>
       ) : null}
+      <HivePhotos hiveId={h.id} boxes={h.boxes} apiary={apiary.data} />
     </View>
   );
 

@@ -1,6 +1,7 @@
 import { useState } from 'react';
-import { Image, View } from 'react-native';
+import { View } from 'react-native';
 import { useStoryQuery } from '@/components/api/story';
+import { PhotoStrip } from '@/components/photos/photo-strip';
 import { formatDay } from '@/components/tasks/due-dates';
 import { useTheme } from '@/components/theme/use-theme';
 import { ChoiceChips } from '@/components/ui/choice-chips';
@@ -94,16 +95,11 @@ function StoryCard({ item }: { item: StoryItemDto }) {
       ))}
       {item.note ? <Text italic>{`“${item.note}”`}</Text> : null}
       {item.photos.length > 0 ? (
-        <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: t.space.xs }}>
-          {item.photos.map((p) => (
-            <Image
-              key={p.id}
-              source={{ uri: p.url }}
-              accessibilityLabel={p.caption ?? `Photo from ${formatDay(item.date)}`}
-              style={{ width: 120, height: 90, borderRadius: t.radius.sm }}
-            />
-          ))}
-        </View>
+        <PhotoStrip
+          testID={`story-photo-${item.id}`}
+          subtitle={formatDay(item.date)}
+          photos={item.photos.map((p) => ({ id: p.id, label: p.caption ?? `Photo from ${formatDay(item.date)}` }))}
+        />
       ) : null}
     </View>
   );

@@ -2,7 +2,7 @@ import { useLocalSearchParams } from 'expo-router';
 import { useMemo } from 'react';
 import { View } from 'react-native';
 import { cautionsFor } from '@/shared/domain/cautions';
-import { frameCapacity } from '@/shared/domain/hives';
+import { frameCapacity, type Box } from '@/shared/domain/hives';
 import {
   BROOD_PATTERNS,
   DISEASE_SIGNS,
@@ -29,6 +29,8 @@ import { LoadError, Loading } from '@/components/ui/query-state';
 import { Screen } from '@/components/ui/screen';
 import { Stepper } from '@/components/ui/stepper';
 import { Text } from '@/components/ui/text';
+import { PhotoPicker } from '@/components/photos/photo-picker';
+import { sendCheckPhotos } from '@/components/photos/upload-queue';
 import { CautionList } from './caution-list';
 import { DraftRestored } from './draft-restored';
 import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
@@ -43,6 +45,7 @@ import {
   WEATHER_LABELS,
 } from './record-labels';
 import { useRecordForm } from './use-record-form';
+import { draftStorageKey } from './use-record-draft';
 import { shortDateOfInstant, type VisitTime } from './when';
 
 type CellCounts = Record<QueenCellKind, { open: number; capped: number }>;
@@ -198,6 +201,7 @@ export function QuickCheckScreen() {
       hiveId={hive.data.id}
       hiveName={hive.data.name}
       capacity={frameCapacity(hive.data.boxes)}
+      boxes={hive.data.boxes}
       // A failed list read only loses the pre-fill; the keeper can still record.
       previousReady={!previous.isPending}
       previous={previous.data?.[0]}
@@ -209,11 +213,12 @@ interface QuickCheckFormProps {
   hiveId: string;
   hiveName: string;
   capacity: number;
+  boxes: readonly Box[];
   previousReady: boolean;
   previous: InspectionDto | undefined;
 }
 
-function QuickCheckForm({ hiveId, hiveName, capacity, previousReady, previous }: QuickCheckFormProps) {
+function QuickCheckForm({ hiveId, hiveName, capacity, boxes, previousReady, previous }: QuickCheckFormProps) {
   const t = useTheme();
   const now = useNow();
   const form = useRecordForm({
@@ -226,6 +231,8 @@ function QuickCheckForm({ hiveId, hiveName, capacity, previousReady, previous }:
     extraCheck: (x) =>
       Math.max(x.framesBrood, x.framesBees, x.honeyFrames, x.pollenFrames) > capacity ? `This hive’s boxes hold ${capacity} frames; lower the frame counts.` : null,
     leaveTo: { pathname: '/hives/[hiveId]', params: { hiveId } },
+    // The check's photos waited with the draft; now that the check has an id they can go.
+    onSaved: (record) => void sendCheckPhotos(draftStorageKey('inspection', hiveId), record.id),
   });
   const { draft, set } = form;
   const v = draft.values;
@@ -352,6 +359,9 @@ function QuickCheckForm({ hiveId, hiveName, capacity, previousReady, previous }:
             onChange={(airTempC) => set({ airTempC })}
           />
         )}
+      </FormGroup>
+      <FormGroup title="Frame photos">
+        <PhotoPicker hiveId={hiveId} boxes={boxes} draftKey={draftStorageKey('inspection', hiveId)} sendWith="check" testID="check-photo-picker" />
       </FormGroup>
       <FormGroup title="Note">
         <NoteField value={v.note} onChange={(note) => set({ note })} max={RECORD_LIMITS.noteChars} />

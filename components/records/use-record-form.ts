@@ -27,6 +27,8 @@ export interface RecordFormOptions<K extends RecordFormKind, V extends TimedValu
   /** A check the schema cannot make (e.g. the hive's frame capacity): a message, or null. */
   extraCheck?: (values: V) => string | null;
   leaveTo: Href;
+  /** Called with the stored record just before leaving (the Quick check sends its photos then). */
+  onSaved?: (record: { id: string }) => void;
 }
 
 export interface RecordForm<V extends TimedValues> {
@@ -82,8 +84,9 @@ export function useRecordForm<K extends RecordFormKind, V extends TimedValues>(o
     create.mutate(
       { input, idempotencyKey: draft.idempotencyKey },
       {
-        onSuccess: () => {
+        onSuccess: (record) => {
           draft.clear();
+          o.onSaved?.(record);
           leave();
         },
 
