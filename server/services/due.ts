@@ -5,7 +5,7 @@
  * hives (never a query per hive), so the list costs the same handful of queries for 6 hives
  * or 600.
  */
-import { and, asc, desc, eq, gte, inArray, isNull, or, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, gte, inArray, sql, type AnyColumn } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import {
   apiaries,
@@ -46,10 +46,18 @@ type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 /**
  * How far back records are read for the rules: a task from a record older than this is past
  * acting on (Frameside's own choice: about one season). The newest Quick check of each hive is
- * always read, however old, so the next-inspection rule never mistakes an old hive for a new one;
- * treatments still open are always read.
+ * always read, however old, so the next-inspection rule never mistakes an old hive for a new one.
+ * Treatments and mite counts are read for a year: a treatment started longer ago and never
+ * recorded as ended is past reminding.
  */
 export const DUE_LOOKBACK_DAYS = 120;
+/**
+ * Checks and feedings are read for 60 days: every rule that reads them looks only a few weeks back
+ * (capped cells → the new queen's eggs by day 29; a caged queen's checks by day ~12; a feeder
+ * 3–7 days; supers back on at most ~8 weeks after a treatment starts). Frameside's own choice,
+ * which halves what the Due list reads in the busy season.
+ */
+export const DUE_CHECK_LOOKBACK_DAYS = 60;
 const TREATMENT_LOOKBACK_DAYS = 365;
 
 export interface ApiaryInfo {
@@ -67,6 +75,8 @@ interface HiveInfo {
 }
 
 const dateOf = (d: Date): IsoDate => utcMsToDate(d.getTime());
+/** `column = any($1::uuid[])`: one parameter for a set of hives, however many. */
+const anyId = (column: AnyColumn, ids: readonly string[]) => sql`${column} = any(${sql.param(ids)}::uuid[])`;
 const opt = <T>(v: T | null): T | undefined => (v === null ? undefined : v);
 const todayOf = (ctx: Ctx): IsoDate => dateOf(ctx.now());
 const ADDED_KEY_PREFIX = 'task:';
@@ -107,8 +117,10 @@ export async function loadDueRecords(db: Db, hiveList: readonly HiveInfo[], toda
   const out = new Map<string, MutableRecords>();
   if (ids.length === 0) return out;
   const since = new Date(`${addDays(today, -DUE_LOOKBACK_DAYS)}T00:00:00Z`);
+  const checksSince = new Date(`${addDays(today, -DUE_CHECK_LOOKBACK_DAYS)}T00:00:00Z`);
   const treatmentsSince = addDays(today, -TREATMENT_LOOKBACK_DAYS);
 
+  // Only the columns the rules read (frame counts other than honey, disease signs: not used).
   const inspectionCols = {
     id: inspections.id,
     hiveId: inspections.hiveId,
@@ -116,25 +128,15 @@ export async function loadDueRecords(db: Db, hiveList: readonly HiveInfo[], toda
     queenStatus: inspections.queenStatus,
     eggsSeen: inspections.eggsSeen,
     queenCells: inspections.queenCells,
-    framesBrood: inspections.framesBrood,
-    framesBees: inspections.framesBees,
     honeyFrames: inspections.honeyFrames,
-    pollenFrames: inspections.pollenFrames,
-    diseaseSigns: inspections.diseaseSigns,
     spaceActions: inspections.spaceActions,
   };
-  const [recentChecks, newestChecks, feedRows, treatRows, miteRows, queenRows] = await Promise.all([
+  const [recentChecks, feedRows, treatRows, miteRows, queenRows] = await Promise.all([
     db
       .select(inspectionCols)
       .from(inspections)
-      .where(and(inArray(inspections.hiveId, ids), gte(inspections.occurredAt, since)))
+      .where(and(anyId(inspections.hiveId, ids), gte(inspections.occurredAt, checksSince)))
       .orderBy(asc(inspections.occurredAt)),
-    // The newest check of hives with none in the window: DISTINCT ON reads one row per hive off the (hive, time) index.
-    db
-      .selectDistinctOn([inspections.hiveId], inspectionCols)
-      .from(inspections)
-      .where(and(inArray(inspections.hiveId, ids), sql`${inspections.occurredAt} < ${since}`))
-      .orderBy(inspections.hiveId, desc(inspections.occurredAt)),
     db
       .select({
         id: feedings.id,
@@ -148,7 +150,7 @@ export async function loadDueRecords(db: Db, hiveList: readonly HiveInfo[], toda
         feederType: feedings.feederType,
       })
       .from(feedings)
-      .where(and(inArray(feedings.hiveId, ids), gte(feedings.occurredAt, since)))
+      .where(and(anyId(feedings.hiveId, ids), gte(feedings.occurredAt, checksSince)))
       .orderBy(asc(feedings.occurredAt)),
     db
       .select({
@@ -164,7 +166,7 @@ export async function loadDueRecords(db: Db, hiveList: readonly HiveInfo[], toda
         withdrawalUntil: treatments.withdrawalUntil,
       })
       .from(treatments)
-      .where(and(inArray(treatments.hiveId, ids), or(gte(treatments.startDate, treatmentsSince), isNull(treatments.actualEndDate))))
+      .where(and(anyId(treatments.hiveId, ids), gte(treatments.startDate, treatmentsSince)))
       .orderBy(asc(treatments.startDate)),
     db
       .select({
@@ -177,14 +179,25 @@ export async function loadDueRecords(db: Db, hiveList: readonly HiveInfo[], toda
         days: miteCounts.days,
       })
       .from(miteCounts)
-      .where(and(inArray(miteCounts.hiveId, ids), gte(miteCounts.occurredAt, new Date(`${treatmentsSince}T00:00:00Z`))))
+      .where(and(anyId(miteCounts.hiveId, ids), gte(miteCounts.occurredAt, new Date(`${treatmentsSince}T00:00:00Z`))))
       .orderBy(asc(miteCounts.occurredAt)),
     db
       .select({ id: queenEvents.id, hiveId: queenEvents.hiveId, occurredAt: queenEvents.occurredAt, kind: queenEvents.kind })
       .from(queenEvents)
-      .where(and(inArray(queenEvents.hiveId, ids), gte(queenEvents.occurredAt, since)))
+      .where(and(anyId(queenEvents.hiveId, ids), gte(queenEvents.occurredAt, since)))
       .orderBy(asc(queenEvents.occurredAt)),
   ]);
+  // Hives with no check in the window: their newest older check, one row per hive (DISTINCT ON over
+  // the (hive, time) index). Usually none, so usually no query.
+  const withRecent = new Set(recentChecks.map((r) => r.hiveId));
+  const stale = ids.filter((id) => !withRecent.has(id));
+  const newestChecks = stale.length
+    ? await db
+        .selectDistinctOn([inspections.hiveId], inspectionCols)
+        .from(inspections)
+        .where(and(anyId(inspections.hiveId, stale), sql`${inspections.occurredAt} < ${checksSince}`))
+        .orderBy(inspections.hiveId, desc(inspections.occurredAt))
+    : [];
 
   const bucket = (hiveId: string) => {
     let r = out.get(hiveId);
@@ -201,17 +214,14 @@ export async function loadDueRecords(db: Db, hiveList: readonly HiveInfo[], toda
     queenStatus: r.queenStatus,
     eggsSeen: r.eggsSeen,
     queenCells: r.queenCells ?? [],
-    framesBrood: r.framesBrood,
-    framesBees: r.framesBees,
+    framesBrood: 0,
+    framesBees: 0,
     honeyFrames: r.honeyFrames,
-    pollenFrames: r.pollenFrames,
-    diseaseSigns: r.diseaseSigns ?? [],
+    pollenFrames: 0,
+    diseaseSigns: [],
     spaceActions: r.spaceActions ?? [],
   });
-  // Older newest-checks first, so each hive's list stays in date order.
   for (const r of newestChecks) bucket(r.hiveId).inspections.push(toInspection(r));
-  const withRecent = new Set(recentChecks.map((r) => r.hiveId));
-  for (const [hiveId, rec] of out) if (withRecent.has(hiveId)) rec.inspections.length = 0;
   for (const r of recentChecks) bucket(r.hiveId).inspections.push(toInspection(r));
   for (const r of feedRows) {
     bucket(r.hiveId).feedings.push({
@@ -358,7 +368,8 @@ async function collectDue(
         .select({ key: tasks.derivedKey, status: tasks.status, snoozedUntil: tasks.snoozedUntil, resolvedAt: tasks.resolvedAt, byId: tasks.resolvedBy, byName: resolver.name })
         .from(tasks)
         .leftJoin(resolver, eq(resolver.id, tasks.resolvedBy))
-        .where(inArray(tasks.derivedKey, keys))
+        // One array parameter rather than a list of thousands.
+        .where(sql`${tasks.derivedKey} = any(${sql.param(keys)}::text[])`)
     : [];
   const resolutionOf = new Map(resolutions.map((r) => [r.key!, r]));
 

@@ -9,8 +9,22 @@ export type IsoDate = string;
 const DAY_MS = 86_400_000;
 const DATE_RE = /^(\d{4})-(\d{2})-(\d{2})$/;
 
+// Parsed days, remembered: the Due-list rules compare the same few hundred dates thousands of
+// times per request. A pure cache (same input, same output), emptied when it grows large.
+const parsed = new Map<string, number>();
+const PARSED_MAX = 20_000;
+
 /** Epoch milliseconds of 00:00 UTC on `date`; throws a RangeError unless `date` is a real 'YYYY-MM-DD' day. */
 export function dateToUtcMs(date: IsoDate): number {
+  const hit = parsed.get(date);
+  if (hit !== undefined) return hit;
+  const ms = parseDay(date);
+  if (parsed.size >= PARSED_MAX) parsed.clear();
+  parsed.set(date, ms);
+  return ms;
+}
+
+function parseDay(date: IsoDate): number {
   const m = DATE_RE.exec(date);
   if (!m) throw new RangeError(`Expected a date as YYYY-MM-DD, got "${date}".`);
   const [y, mo, d] = [Number(m[1]), Number(m[2]), Number(m[3])];
