@@ -8,7 +8,8 @@ import type { Logger } from 'pino';
 import type { Db } from '../db/client';
 import type { Ctx } from './context';
 import { AppError, errorMiddleware } from './errors';
-import { createLogger } from './logger';
+import { createLogger, redactUrl } from './logger';
+import { sameOrigin } from './middleware/same-origin';
 import { requireUser, sessionMiddleware, sessionOptions } from './middleware/session';
 import { routeFactories } from './routes';
 import { devMailRouter } from './mail/dev-mail';
@@ -79,8 +80,17 @@ export function createApp(opts: AppOptions): CreatedApp {
       strictTransportSecurity: opts.secureCookies ? undefined : false,
     }),
   );
-  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
+  app.use(
+    pinoHttp({
+      logger,
+      autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
+      // Invitation and reset links carry their token in the path: keep it out of the log.
+      serializers: { req: (r: { url?: string }) => ({ ...r, url: redactUrl(r.url) }) },
+    }),
+  );
   if (opts.devOrigin) app.use('/api', devCors(opts.devOrigin));
+  // CSRF: writes must come from the app's own origin (SameSite=Lax on the cookie is the other layer).
+  app.use('/api', sameOrigin({ publicUrl: ctx.publicUrl, devOrigin: opts.devOrigin }));
   // An account export (POST /api/import) can run to megabytes; everything else stays small.
   app.use('/api/import', express.json({ limit: '50mb' }));
   app.use('/api', express.json({ limit: '256kb' }));

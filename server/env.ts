@@ -1,3 +1,4 @@
+import path from 'node:path';
 import { z } from 'zod';
 
 const envSchema = z.object({
@@ -45,6 +46,13 @@ export function readEnv(source: NodeJS.ProcessEnv = process.env): Env {
   if (!parsed.success) {
     const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
     throw new Error(`Frameside cannot start, the environment is not valid:\n${lines.join('\n')}`);
+  }
+  // Photos go out only through the access-checked route; a storage folder inside the served web
+  // folder would make every stored photo public.
+  const web = path.resolve(parsed.data.WEB_DIR);
+  const uploads = path.resolve(parsed.data.UPLOADS_DIR);
+  if (uploads === web || uploads.startsWith(web + path.sep)) {
+    throw new Error('Frameside cannot start: UPLOADS_DIR must not be inside WEB_DIR (the web folder is public, photos are not).');
   }
   if (parsed.data.NODE_ENV === 'production' && parsed.data.SESSION_PASSWORD.startsWith('frameside-local-development')) {
     throw new Error('Frameside cannot start: set SESSION_PASSWORD (32+ random characters) in production.');
