@@ -1,17 +1,16 @@
 import { useLocalSearchParams } from 'expo-router';
-import { View } from 'react-native';
 import { cautionsFor } from '@/shared/domain/cautions';
 import { FEEDER_TYPES, FEEDING_KINDS, SYRUP_BASES, SYRUP_RATIOS, type FeederType, type FeedingKind, type SyrupBasis, type SyrupRatio } from '@/shared/domain/records';
 import { gallonsToLitres, kgToLb, lbToKg, litresToGallons } from '@/shared/domain/units';
 import { feedingCreateSchema, RECORD_LIMITS, type FeedingCreateInput } from '@/shared/schemas/records';
 import { useHiveQuery } from '@/components/api/hives';
 import { useNow } from '@/components/layout/use-now';
-import { useTheme } from '@/components/theme/use-theme';
 import { ChoiceChips } from '@/components/ui/choice-chips';
 import { LoadError, Loading } from '@/components/ui/query-state';
 import { Screen } from '@/components/ui/screen';
 import { Stepper } from '@/components/ui/stepper';
 import { Text } from '@/components/ui/text';
+import { SyrupSugarLine } from '@/components/tools/syrup-sugar-line';
 import { CautionList } from './caution-list';
 import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
 import { FEEDER_TYPE_LABELS, FEEDING_KIND_LABELS, optionsOf, SYRUP_BASIS_LABELS, SYRUP_RATIO_LABELS } from './record-labels';
@@ -116,7 +115,6 @@ export function FeedingScreen() {
 }
 
 function FeedingForm({ hiveId, hiveName }: { hiveId: string; hiveName: string }) {
-  const t = useTheme();
   const now = useNow();
   const [preferredUnits, setPreferredUnits] = useUnits();
   const form = useRecordForm({
@@ -189,6 +187,7 @@ function FeedingForm({ hiveId, hiveName }: { hiveId: string; hiveName: string })
           increaseLabel={`More, by ${STEP[measure][v.units]} ${unit}`}
           onChange={(amount) => set({ amount })}
         />
+        {v.kind === 'syrup' ? <SyrupSugarLine ratio={v.ratio} basis={v.basis} litres={si} testID="feeding-sugar" /> : null}
         {v.units === 'us' ? (
           <Text tone="muted" testID="feeding-stored-amount">{`Stored as ${si} ${measure === 'volume' ? 'L' : 'kg'}.`}</Text>
         ) : null}
@@ -200,6 +199,7 @@ function FeedingForm({ hiveId, hiveName }: { hiveId: string; hiveName: string })
     <>
       <FormGroup title="Feeder">
         <ChoiceChips field="feederType" label="Feeder" hideLabel options={feederOptions} value={v.feederType} onChange={(feederType) => set({ feederType })} />
+        <CautionList ids={cautionsFor('feeding', { feederType: v.feederType })} />
       </FormGroup>
       <FormGroup title="When">
         <VisitTimeField label="Fed" value={v.visitTime} now={now} fixedAt={v.occurredAt} onChange={(visitTime) => set({ visitTime, occurredAt: null })} />
@@ -216,12 +216,7 @@ function FeedingForm({ hiveId, hiveName }: { hiveId: string; hiveName: string })
       subject={hiveName}
       backHref={{ pathname: '/hives/[hiveId]', params: { hiveId } }}
       testID="feeding-screen"
-      intro={
-        <View style={{ gap: t.space.sm }}>
-          <DraftRestored draft={draft} testID="feeding" />
-          <CautionList ids={cautionsFor('feeding', { feederType: v.feederType })} />
-        </View>
-      }
+      intro={<DraftRestored draft={draft} testID="feeding" />}
       left={left}
       right={right}
       bottomBar={<SaveBar testID="feeding-save" label="Save feeding" onSave={form.save} saving={form.saving} error={form.error} />}

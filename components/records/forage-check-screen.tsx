@@ -1,11 +1,9 @@
 import { useLocalSearchParams } from 'expo-router';
-import { View } from 'react-native';
 import { cautionsFor } from '@/shared/domain/cautions';
 import { FORAGE_JUDGEMENTS, SYRUP_DISH, syrupDishVerdict, type ForageJudgement, type SyrupDishObservation } from '@/shared/domain/forage';
 import { forageCheckCreateSchema, RECORD_LIMITS, type ForageCheckCreateInput } from '@/shared/schemas/records';
 import { useApiaryQuery } from '@/components/api/apiaries';
 import { useNow } from '@/components/layout/use-now';
-import { useTheme } from '@/components/theme/use-theme';
 import { ChoiceChips } from '@/components/ui/choice-chips';
 import { Notice } from '@/components/ui/notice';
 import { LoadError, Loading } from '@/components/ui/query-state';
@@ -78,7 +76,6 @@ export function ForageCheckScreen() {
 }
 
 function ForageCheckForm({ apiaryId, apiaryName }: { apiaryId: string; apiaryName: string }) {
-  const t = useTheme();
   const now = useNow();
   const form = useRecordForm({
     kind: 'forage-check',
@@ -175,11 +172,7 @@ function ForageCheckForm({ apiaryId, apiaryName }: { apiaryId: string; apiaryNam
       subject={apiaryName}
       backHref={{ pathname: '/apiaries/[apiaryId]', params: { apiaryId } }}
       testID="forage-check-screen"
-      intro={
-        <View style={{ gap: t.space.sm }}>
-          <DraftRestored draft={draft} testID="forage-check" />
-        </View>
-      }
+      intro={<DraftRestored draft={draft} testID="forage-check" />}
       left={left}
       right={right}
       bottomBar={<SaveBar testID="forage-check-save" label="Save forage check" onSave={form.save} saving={form.saving} error={form.error} />}

@@ -1,10 +1,8 @@
 import { useLocalSearchParams } from 'expo-router';
-import { View } from 'react-native';
 import { MITE_METHODS, miteLoad, type MiteLoad, type MiteMethod } from '@/shared/domain/mites';
 import { miteCountCreateSchema, RECORD_LIMITS, type MiteCountCreateInput } from '@/shared/schemas/records';
 import { useHiveQuery } from '@/components/api/hives';
 import { useNow } from '@/components/layout/use-now';
-import { useTheme } from '@/components/theme/use-theme';
 import { ChoiceChips } from '@/components/ui/choice-chips';
 import { Notice } from '@/components/ui/notice';
 import { LoadError, Loading } from '@/components/ui/query-state';
@@ -69,7 +67,6 @@ export function MiteCountScreen() {
 }
 
 function MiteCountForm({ hiveId, hiveName }: { hiveId: string; hiveName: string }) {
-  const t = useTheme();
   const now = useNow();
   const form = useRecordForm({
     kind: 'mite-count',
@@ -147,10 +144,10 @@ function MiteCountForm({ hiveId, hiveName }: { hiveId: string; hiveName: string 
       backHref={{ pathname: '/hives/[hiveId]', params: { hiveId } }}
       testID="mite-count-screen"
       intro={
-        <View style={{ gap: t.space.sm }}>
+        <>
           <DraftRestored draft={draft} testID="mite-count" />
           {board ? <Text tone="muted">Natural mite fall on a board tracks the colony’s load loosely: confirm a high count with a wash.</Text> : null}
-        </View>
+        </>
       }
       left={left}
       right={right}

@@ -31,6 +31,7 @@ import { Stepper } from '@/components/ui/stepper';
 import { Text } from '@/components/ui/text';
 import { PhotoPicker } from '@/components/photos/photo-picker';
 import { sendCheckPhotos } from '@/components/photos/upload-queue';
+import { StoresLine } from '@/components/tools/stores-line';
 import { CautionList } from './caution-list';
 import { DraftRestored } from './draft-restored';
 import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
@@ -281,6 +282,7 @@ function QuickCheckForm({ hiveId, hiveName, capacity, boxes, previousReady, prev
         {frameStepper('framesBrood', 'Frames of brood', 'One half frame less brood', 'One half frame more brood')}
         {frameStepper('framesBees', 'Frames covered with bees', 'One half frame fewer bees', 'One half frame more bees')}
         {frameStepper('honeyFrames', 'Honey frames', 'One half frame less honey', 'One half frame more honey')}
+        <StoresLine honeyFrames={v.honeyFrames} boxes={boxes} testID="quick-check-stores" />
         {frameStepper('pollenFrames', 'Pollen frames', 'One half frame less pollen', 'One half frame more pollen')}
       </FormGroup>
       <FormGroup title="Queen and brood">

@@ -81,7 +81,11 @@ interface TargetReport {
   tooClose: string[];
 }
 
-function measure(boxes: Box[], minSize = 64, minGap = 8): TargetReport {
+/**
+ * The issue asks for 8 px between targets; PRODUCT.md ("Look and feel") and the team's glove rule
+ * ask for 12 px, which the tokens (targetGap) give. The stricter 12 is asserted.
+ */
+function measure(boxes: Box[], minSize = 64, minGap = 12): TargetReport {
   const tooSmall = boxes.filter((b) => b.w < minSize - 0.01 || b.h < minSize - 0.01).map((b) => `${b.desc} ${b.w.toFixed(1)}×${b.h.toFixed(1)}`);
   const tooClose: string[] = [];
   let smallestGap = { between: '', gap: Infinity };
@@ -241,7 +245,7 @@ describe('Quick check and record forms, end to end in Chromium', () => {
     await context.close();
   });
 
-  it('(b) every interactive element of the Quick check at 390 × 844 is at least 64 × 64 px and 8 px from its neighbours', async () => {
+  it('(b) every interactive element of the Quick check at 390 × 844 is at least 64 × 64 px and 12 px (≥ 8) from its neighbours', async () => {
     const { context, page } = await newPage(e, PHONE);
     await signIn(page, KEEPER);
     await byTestId(page, 'nav-apiaries').waitFor();
