@@ -22,7 +22,7 @@ import {
 import { windowState } from '../../shared/domain/access';
 import { addDays, compareDates, utcMsToDate, type IsoDate } from '../../shared/domain/dates';
 import { DUE_RULES, deriveTasks, isOverdue, sortTasks, type DerivedTask, type DueRule } from '../../shared/domain/due';
-import type { Box, FrameSize, Hemisphere } from '../../shared/domain/hives';
+import type { Box, Hemisphere } from '../../shared/domain/hives';
 import type {
   FeedingRecord,
   HiveRecords,
@@ -32,7 +32,7 @@ import type {
   StoresEstimateRecord,
   TreatmentRecord,
 } from '../../shared/domain/records';
-import { estimateStores } from '../../shared/domain/stores';
+import { storesFromHoneyFrames as storesEstimate } from '../../shared/domain/stores';
 import type { DueTaskDto, TaskCreateInput, TaskResolutionDto } from '../../shared/schemas/tasks';
 import { taskCreateSchema } from '../../shared/schemas/tasks';
 import type { Ctx, SessionUser } from '../context';
@@ -81,34 +81,9 @@ const opt = <T>(v: T | null): T | undefined => (v === null ? undefined : v);
 const todayOf = (ctx: Ctx): IsoDate => dateOf(ctx.now());
 const ADDED_KEY_PREFIX = 'task:';
 
-/**
- * The frame size honey frames are counted in: the size most of the hive's frames are (ties go to
- * the larger frame). Frameside's own choice, since a Quick check counts honey frames, not boxes.
- */
-export function honeyFrameSize(boxes: readonly Box[]): FrameSize {
-  const order: FrameSize[] = ['deep', 'medium', 'shallow'];
-  const frames = new Map<FrameSize, number>();
-  for (const b of boxes) frames.set(b.size, (frames.get(b.size) ?? 0) + b.frames);
-  let best: FrameSize = 'deep';
-  let bestN = -1;
-  for (const size of order) {
-    const n = frames.get(size) ?? 0;
-    if (n > bestN) {
-      best = size;
-      bestN = n;
-    }
-  }
-  return best;
-}
-
-/** kg of honey on `honeyFrames` full frames (half frames count half) of the hive's frame size, via estimateStores (TRADE-REFERENCES §6). */
+/** kg of honey on a check's honey frames, via estimateStores (TRADE-REFERENCES §6). */
 export function storesFromHoneyFrames(honeyFrames: number, boxes: readonly Box[]): number {
-  const size = honeyFrameSize(boxes);
-  const whole = Math.floor(honeyFrames);
-  const frames = Array.from({ length: whole }, () => ({ size, fullness: 1 }));
-  const part = honeyFrames - whole;
-  if (part > 0) frames.push({ size, fullness: part });
-  return estimateStores({ frames }).kg;
+  return storesEstimate(honeyFrames, boxes).kg;
 }
 
 /** Records the rules need for each hive, read with one query per table (plus one for each hive's newest check). */

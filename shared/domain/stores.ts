@@ -3,7 +3,7 @@
  * it up. Sources: TRADE-REFERENCES §6 (per-frame honey), §7 (moisture limit), §2 (syrup).
  */
 
-import type { FrameSize } from './hives';
+import type { Box, FrameSize } from './hives';
 import { mixSyrup, type SyrupMixBasis, type SyrupRatioInput } from './syrup';
 
 /**
@@ -83,4 +83,35 @@ export function feedPlan(input: FeedPlanInput): FeedPlan {
   const shortfallKg = Math.max(0, targetKg - storesKg);
   const mix = mixSyrup({ ratio: input.ratio, basis: input.basis ?? 'weight', sugarKg: shortfallKg * SUGAR_KG_PER_HONEY_KG });
   return { shortfallKg, syrupL: mix.finishedVolumeL, sugarKg: mix.sugarKg, waterL: mix.waterL };
+}
+
+/**
+ * The frame size a Quick check's honey frames are counted in: the size most of the hive's frames
+ * are (ties go to the larger frame). Frameside's own choice, since a check counts frames, not boxes.
+ */
+export function honeyFrameSize(boxes: readonly Box[]): FrameSize {
+  const order: FrameSize[] = ['deep', 'medium', 'shallow'];
+  const frames = new Map<FrameSize, number>();
+  for (const b of boxes) frames.set(b.size, (frames.get(b.size) ?? 0) + b.frames);
+  let best: FrameSize = 'deep';
+  let bestN = -1;
+  for (const size of order) {
+    const n = frames.get(size) ?? 0;
+    if (n > bestN) {
+      best = size;
+      bestN = n;
+    }
+  }
+  return best;
+}
+
+/** estimateStores for a Quick check's `honeyFrames` full frames (a half frame counts half) of the hive's honey-frame size. */
+export function storesFromHoneyFrames(honeyFrames: number, boxes: readonly Box[]): StoresEstimate {
+  if (!Number.isFinite(honeyFrames) || honeyFrames < 0) throw new RangeError('Honey frames must be 0 or more.');
+  const size = honeyFrameSize(boxes);
+  const whole = Math.floor(honeyFrames);
+  const frames: FrameStores[] = Array.from({ length: whole }, () => ({ size, fullness: 1 }));
+  const part = honeyFrames - whole;
+  if (part > 0) frames.push({ size, fullness: part });
+  return estimateStores({ frames });
 }

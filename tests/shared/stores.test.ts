@@ -5,7 +5,7 @@
  * 0.8 kg sugar per kg honey is Frameside's own assumption (honey ≥ 80 % dry matter at the EU
  * 20 % moisture limit, §7).
  */
-import { estimateStores, feedPlan, HONEY_KG_PER_FULL_FRAME, SUGAR_KG_PER_HONEY_KG } from '../../shared/domain/stores';
+import { estimateStores, feedPlan, honeyFrameSize, HONEY_KG_PER_FULL_FRAME, storesFromHoneyFrames, SUGAR_KG_PER_HONEY_KG } from '../../shared/domain/stores';
 
 describe('estimateStores per full frame (§6, derived)', () => {
   it.each([
@@ -92,5 +92,22 @@ describe('feedPlan (shortfall → 2:1 syrup through mixSyrup)', () => {
     [{ storesKg: 10, targetKg: 20, ratio: -1 }],
   ])('rejects a bad input (RangeError)', (input) => {
     expect(() => feedPlan(input as never)).toThrow(RangeError);
+  });
+});
+
+describe('storesFromHoneyFrames (a Quick check’s honey frames)', () => {
+  it.each([
+    // TRADE-REFERENCES §6: full deep frame 2.7–3.6 kg → 4 frames 10.8–14.4 kg, midpoint 12.6 (derived).
+    [[{ size: 'deep', frames: 10 }, { size: 'deep', frames: 10 }, { size: 'medium', frames: 10 }], 4, 'deep', 12.6],
+    // Medium 1.8–2.2 kg: 2½ frames → 4.5–5.5 kg, midpoint 5.0 (derived).
+    [[{ size: 'deep', frames: 10 }, { size: 'medium', frames: 10 }, { size: 'medium', frames: 10 }], 2.5, 'medium', 5.0],
+    // A tie in frames goes to the larger frame (Frameside's own choice).
+    [[{ size: 'deep', frames: 10 }, { size: 'medium', frames: 10 }], 1, 'deep', 3.15],
+  ] as const)('%j, %s honey frames → %s frames, %s kg', (boxes, honeyFrames, size, kg) => {
+    expect(honeyFrameSize(boxes)).toBe(size);
+    expect(storesFromHoneyFrames(honeyFrames, boxes).kg).toBeCloseTo(kg, 6);
+  });
+  it('refuses a negative count', () => {
+    expect(() => storesFromHoneyFrames(-1, [{ size: 'deep', frames: 10 }])).toThrow(RangeError);
   });
 });
