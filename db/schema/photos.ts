@@ -36,6 +36,8 @@ export const photos = pgTable(
     bytes: integer('bytes'),
     /** Bytes the client sent. */
     uploadBytes: integer('upload_bytes').notNull(),
+    /** Arrival order: photos added in the same instant (one upload, or a test's frozen clock) keep the order they were sent in. */
+    seq: integer('seq').generatedAlwaysAsIdentity(),
     uploadedBy: uuid('uploaded_by')
       .notNull()
       .references(() => users.id),

@@ -34,7 +34,7 @@ export function enqueuePhotos(ctx: Ctx, photoIds: string[]): Promise<void> {
 
 /** Picks up photos left 'processing' by a stopped server (their upload is still in storage). */
 export async function resumePhotoProcessing(ctx: Ctx): Promise<number> {
-  const rows = await ctx.db.select({ id: photos.id }).from(photos).where(eq(photos.status, 'processing')).orderBy(photos.createdAt);
+  const rows = await ctx.db.select({ id: photos.id }).from(photos).where(eq(photos.status, 'processing')).orderBy(photos.seq);
   if (rows.length) void enqueuePhotos(ctx, rows.map((r) => r.id));
   return rows.length;
 }

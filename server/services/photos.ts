@@ -111,7 +111,7 @@ export async function addPhotos(
       const rows = await tx
         .insert(photos)
         .values(
-          incoming.map((f, i) => ({
+          incoming.map((f) => ({
             hiveId,
             inspectionId: input.inspectionId ?? null,
             box: input.box ?? null,
@@ -120,8 +120,7 @@ export async function addPhotos(
             uploadKey: f.key,
             uploadBytes: f.bytes,
             uploadedBy: user.id,
-            // A millisecond apart, so photos sent together keep the order they were sent in.
-            createdAt: new Date(ctx.now().getTime() + i),
+            createdAt: ctx.now(),
             updatedAt: ctx.now(),
           })),
         )
@@ -149,7 +148,7 @@ export async function listPhotos(ctx: Ctx, user: SessionUser, hiveId: string, fi
     .from(photos)
     .innerJoin(users, eq(users.id, photos.uploadedBy))
     .where(where)
-    .orderBy(asc(photos.createdAt), asc(photos.id));
+    .orderBy(asc(photos.createdAt), asc(photos.seq));
   return rows.map((r) => toDto(r.p, r.name));
 }
 

@@ -16,7 +16,7 @@ export async function attachPhotos(ctx: Ctx, items: StoryItemDto[]): Promise<Sto
     .select({ id: photos.id, inspectionId: photos.inspectionId, box: photos.box, frame: photos.frame })
     .from(photos)
     .where(and(inArray(photos.inspectionId, ids), eq(photos.status, 'ready')))
-    .orderBy(asc(photos.createdAt), asc(photos.id));
+    .orderBy(asc(photos.createdAt), asc(photos.seq));
   if (rows.length === 0) return items;
   const byCheck = new Map<string, StoryPhoto[]>();
   for (const r of rows) {
