@@ -15,6 +15,7 @@ import { LoadError, Loading } from '@/components/ui/query-state';
 import { Screen } from '@/components/ui/screen';
 import { Text } from '@/components/ui/text';
 import { ForageCheckButton } from '@/components/records/forage-check-button';
+import { ApiaryPeopleLinks } from '@/components/people/apiary-people-links';
 import { accessLine, canIn, hiveCountLine } from './membership';
 
 /** One apiary's hives. Writers (owner, keeper) get "Add hive" at the bottom. */
@@ -54,6 +55,7 @@ export function ApiaryScreen() {
               {hiveCountLine(apiary.data.hiveCount)} · You: {accessLine(apiary.data, now)}
             </Text>
             <ForageCheckButton apiary={apiary.data} />
+            <ApiaryPeopleLinks apiary={apiary.data} />
           </View>
         )}
 

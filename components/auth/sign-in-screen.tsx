@@ -89,6 +89,9 @@ export function SignInScreen() {
               <Link href="/sign-up" asChild>
                 <BigButton testID="go-sign-up" variant="secondary" label="Create an account" />
               </Link>
+              <Link href="/reset-password" asChild>
+                <BigButton testID="go-reset-password" variant="secondary" label="Forgot your password?" />
+              </Link>
             </View>
           </View>
         </AuthFrame>

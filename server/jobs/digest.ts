@@ -50,7 +50,7 @@ export async function sendDueDigests(ctx: Ctx): Promise<number> {
       const due = dueByApiary.get(r.apiaryId) ?? [];
       if (!due.length) continue;
       lines.push(`${r.apiaryName}:`);
-      for (const t of due) lines.push(`- ${t.dueDate}${t.overdue ? ' (overdue)' : ''}: ${t.title}${t.hiveName ? ` — ${t.hiveName}` : ''}`);
+      for (const t of due) lines.push(`- ${t.dueDate}${t.overdue ? ' (overdue)' : ''}: ${t.title}${t.hiveName && !t.title.includes(t.hiveName) ? ` — ${t.hiveName}` : ''}`);
       lines.push('');
     }
     if (!lines.length) continue;

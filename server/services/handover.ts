@@ -157,7 +157,7 @@ export async function sendHandoverMail(ctx: Ctx, user: SessionUser, apiaryId: st
     ),
     '',
     h.due.length ? 'Due while you look after them:' : 'Nothing is due in your window.',
-    ...h.due.map((t) => `- ${t.dueDate}${t.overdue ? ' (overdue)' : ''}: ${t.title}${t.hiveName ? ` — ${t.hiveName}` : ''}`),
+    ...h.due.map((t) => `- ${t.dueDate}${t.overdue ? ' (overdue)' : ''}: ${t.title}${t.hiveName && !t.title.includes(t.hiveName) ? ` — ${t.hiveName}` : ''}`),
     '',
     'Take care:',
     ...h.cautions.map((c) => `- ${c.title}: ${c.lines[0]}`),

@@ -8,6 +8,7 @@ import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { seedDemo, type DemoIds, DEMO_PASSWORD } from '../../db/seed';
+import type { Mailer } from '../../server/mail/mailer';
 import { startTestServer, type TestServer } from '../helpers/server';
 
 export const PHONE = { width: 390, height: 844 } as const;
@@ -25,12 +26,12 @@ export interface E2e {
   close(): Promise<void>;
 }
 
-export async function startE2e(): Promise<E2e> {
+export async function startE2e(opts: { mailer?: Mailer } = {}): Promise<E2e> {
   const dist = path.join(root, 'dist');
   if (!fs.existsSync(path.join(dist, 'index.html'))) {
     throw new Error('dist/index.html is missing: run `npm test` (it builds the web app) or `npm run export:web`.');
   }
-  const server = await startTestServer({ webDir: dist });
+  const server = await startTestServer({ webDir: dist, mailer: opts.mailer });
   const ids = await seedDemo(server.testDb.db, { now: server.clock.now });
   const http: Server = await new Promise((resolve) => {
     const s = server.app.listen(0, '127.0.0.1', () => resolve(s));

@@ -1,0 +1,1 @@
+export { HandoverScreen as default } from '@/components/people/handover-screen';

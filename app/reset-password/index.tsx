@@ -1,0 +1,1 @@
+export { ResetRequestScreen as default } from '@/components/people/reset-password-screen';
