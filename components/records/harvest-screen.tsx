@@ -83,6 +83,9 @@ function HarvestForm({ hiveId, hiveName }: { hiveId: string; hiveName: string })
         <Stepper field="supers" label="Supers taken" value={v.supers} min={0} max={50} decreaseLabel="One super fewer" increaseLabel="One super more" onChange={(supers) => set({ supers })} />
         <Stepper field="frames" label="Frames taken" hint="Frames taken on their own, besides whole supers." value={v.frames} min={0} max={500} decreaseLabel="One frame fewer" increaseLabel="One frame more" onChange={(frames) => set({ frames })} />
       </FormGroup>
+      <FormGroup title="When">
+        <VisitTimeField label="Taken" value={v.visitTime} now={now} fixedAt={v.occurredAt} onChange={(visitTime) => set({ visitTime, occurredAt: null })} />
+      </FormGroup>
     </>
   );
 
@@ -145,9 +148,6 @@ function HarvestForm({ hiveId, hiveName }: { hiveId: string; hiveName: string })
             onChange={(moisturePercent) => set({ moisturePercent })}
           />
         )}
-      </FormGroup>
-      <FormGroup title="When">
-        <VisitTimeField label="Taken" value={v.visitTime} now={now} fixedAt={v.occurredAt} onChange={(visitTime) => set({ visitTime, occurredAt: null })} />
       </FormGroup>
       <FormGroup title="Note">
         <NoteField value={v.note} onChange={(note) => set({ note })} max={RECORD_LIMITS.noteChars} />
