@@ -512,4 +512,27 @@ describe('Quick check and record forms, end to end in Chromium', () => {
     expect(checks[0].judgement).toBe('dearth');
     await context.close();
   });
+
+  it('(g) offers each person only the records their role may make (sitter: Quick check and feeding; viewer: none)', async () => {
+    const hiveId = e.ids.hives.Clover;
+    for (const [email, offered, withheld] of [
+      ['sitter@frameside.test', ['record-quick-check', 'record-feeding'], ['record-treatment', 'record-mite-count', 'record-harvest', 'record-queen-event', 'record-colony-event']],
+      ['mentor@frameside.test', [], ['record-quick-check', 'record-feeding', 'record-treatment']],
+    ] as const) {
+      const { context, page } = await newPage(e, PHONE);
+      await signIn(page, email);
+      await byTestId(page, 'nav-apiaries').waitFor();
+      await page.goto(`/hives/${hiveId}`);
+      await byTestId(page, 'hive-title').waitFor();
+      await page.waitForLoadState('networkidle');
+      for (const id of offered) expect(await byTestId(page, id).count()).toBe(1);
+      for (const id of withheld) expect(await byTestId(page, id).count()).toBe(0);
+      await page.goto(`/apiaries/${e.ids.orchardRow}`);
+      await byTestId(page, 'apiary-title').waitFor();
+      await page.waitForLoadState('networkidle');
+      // A sitter may record a Forage check (shared/domain/access.ts); a viewer may not.
+      expect(await byTestId(page, 'record-forage-check').count()).toBe(email.startsWith('sitter') ? 1 : 0);
+      await context.close();
+    }
+  });
 });
