@@ -18,6 +18,8 @@ const child = spawnChild(bin('tsx'), ['server/index.ts'], {
   NODE_ENV: 'production',
   // A local run keeps e-mail in .mail/ (listed at /dev/mail); a real host sets SMTP_HOST/SMTP_PORT instead.
   MAIL_FAKE: process.env.MAIL_FAKE ?? 'true',
+  // Links in e-mail open this server (PORT=9000 npm start mails :9000 links).
+  PUBLIC_URL: process.env.PUBLIC_URL ?? `http://127.0.0.1:${port}`,
   SESSION_PASSWORD: process.env.SESSION_PASSWORD ?? sessionSecret(),
 });
 child.on('exit', (code) => process.exit(code ?? 0));
