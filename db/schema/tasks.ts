@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { date, index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import { bigint, date, index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
 import { TASK_RESOLUTIONS } from '../../shared/domain/records';
 import { apiaries } from './apiaries';
 import { id, timestamps } from './columns';
@@ -48,3 +48,16 @@ export const tasks = pgTable(
     index('tasks_apiary_status_idx').on(t.apiaryId, t.status),
   ],
 );
+
+/**
+ * A change counter per hive for the Due list's cache: database triggers on the record tables
+ * the rules read (inspections, feedings, treatments, mite counts, queen and colony events) set
+ * `stamp` from a sequence on every insert, edit or delete, whoever writes. The Due list reuses a
+ * hive's derived tasks while its stamp, the day and the hive's own fields are unchanged.
+ */
+export const hiveRecordStamps = pgTable('hive_record_stamps', {
+  hiveId: uuid('hive_id')
+    .primaryKey()
+    .references(() => hives.id, { onDelete: 'cascade' }),
+  stamp: bigint('stamp', { mode: 'number' }).notNull(),
+});

@@ -10,6 +10,7 @@ import { alias } from 'drizzle-orm/pg-core';
 import {
   apiaries,
   feedings,
+  hiveRecordStamps,
   hives,
   inspections,
   memberships,
@@ -283,6 +284,30 @@ async function apiaryInfo(db: Db | Tx, apiaryId: string): Promise<ApiaryInfo | n
   return a ?? null;
 }
 
+/**
+ * Derived tasks per hive, kept between requests and reused while the key (day, the hive's change
+ * stamp — set by database triggers on every record write — its apiary's hemisphere and target, its
+ * name and boxes) is the same. One cache per database; the oldest entries go past MAX_CACHED_HIVES.
+ */
+class DerivedCache {
+  private readonly map = new Map<string, { key: string; tasks: DerivedTask[] }>();
+  get(hiveId: string) {
+    return this.map.get(hiveId);
+  }
+  set(hiveId: string, entry: { key: string; tasks: DerivedTask[] }) {
+    this.map.delete(hiveId);
+    this.map.set(hiveId, entry);
+    while (this.map.size > MAX_CACHED_HIVES) this.map.delete(this.map.keys().next().value!);
+  }
+}
+const MAX_CACHED_HIVES = 50_000;
+const derivedCaches = new WeakMap<Db, DerivedCache>();
+function derivedCacheOf(db: Db): DerivedCache {
+  let c = derivedCaches.get(db);
+  if (!c) derivedCaches.set(db, (c = new DerivedCache()));
+  return c;
+}
+
 const creator = alias(users, 'task_creator');
 const resolver = alias(users, 'task_resolver');
 
@@ -300,14 +325,28 @@ async function collectDue(
   const apiaryIds = apiaryList.map((a) => a.id);
   const byApiary = new Map(apiaryList.map((a) => [a.id, a]));
 
+  // Each hive's change stamp is read before its records, so a cached derivation is never newer than its stamp.
   const hiveRows = await ctx.db
-    .select({ id: hives.id, apiaryId: hives.apiaryId, name: hives.name, boxes: hives.boxes })
+    .select({ id: hives.id, apiaryId: hives.apiaryId, name: hives.name, boxes: hives.boxes, stamp: hiveRecordStamps.stamp })
     .from(hives)
+    .leftJoin(hiveRecordStamps, eq(hiveRecordStamps.hiveId, hives.id))
     .where(and(inArray(hives.apiaryId, apiaryIds), eq(hives.status, 'active'), opts.hiveId ? eq(hives.id, opts.hiveId) : undefined));
   const hiveById = new Map(hiveRows.map((h) => [h.id, h]));
+  const cache = derivedCacheOf(ctx.db);
+  const cacheKey = (h: (typeof hiveRows)[number]) => {
+    const a = byApiary.get(h.apiaryId)!;
+    return `${today}|${h.stamp ?? 0}|${a.hemisphere}|${a.winterTargetKg}|${h.name}|${JSON.stringify(h.boxes)}`;
+  };
+  const derivedByHive = new Map<string, DerivedTask[]>();
+  const misses: typeof hiveRows = [];
+  for (const h of hiveRows) {
+    const hit = cache.get(h.id);
+    if (hit && hit.key === cacheKey(h)) derivedByHive.set(h.id, hit.tasks);
+    else misses.push(h);
+  }
 
   const [records, addedRows] = await Promise.all([
-    loadDueRecords(ctx.db, hiveRows, today),
+    loadDueRecords(ctx.db, misses, today),
     ctx.db
       .select({ t: tasks, byName: creator.name })
       .from(tasks)
@@ -322,19 +361,19 @@ async function collectDue(
       ),
   ]);
 
-  const derived: DerivedTask[] = [];
-  for (const h of hiveRows) {
+  for (const h of misses) {
     const a = byApiary.get(h.apiaryId)!;
-    derived.push(
-      ...deriveTasks({
-        today,
-        hemisphere: a.hemisphere,
-        apiary: { id: a.id, winterTargetKg: a.winterTargetKg },
-        hive: { id: h.id, name: h.name, boxes: h.boxes, status: 'active' },
-        records: records.get(h.id) ?? {},
-      }),
-    );
+    const tasksOfHive = deriveTasks({
+      today,
+      hemisphere: a.hemisphere,
+      apiary: { id: a.id, winterTargetKg: a.winterTargetKg },
+      hive: { id: h.id, name: h.name, boxes: h.boxes, status: 'active' },
+      records: records.get(h.id) ?? {},
+    });
+    derivedByHive.set(h.id, tasksOfHive);
+    cache.set(h.id, { key: cacheKey(h), tasks: tasksOfHive });
   }
+  const derived: DerivedTask[] = hiveRows.flatMap((h) => derivedByHive.get(h.id) ?? []);
 
   // Resolutions for exactly the keys derived now: the unique index answers each.
   const keys = derived.map((t) => t.key);

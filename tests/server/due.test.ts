@@ -6,7 +6,7 @@
  */
 import request from 'supertest';
 import { and, eq } from 'drizzle-orm';
-import { auditLog, tasks } from '../../db/schema';
+import { auditLog, hives, inspections, miteCounts, tasks } from '../../db/schema';
 import { dueForApiary } from '../../server/services/due';
 import type { DueTaskDto } from '../../shared/schemas/tasks';
 import { addHive, recordWriter, startDueServer, type DueServer } from '../helpers/due-fixtures';
@@ -191,6 +191,22 @@ describe('GET /api/due and /api/tasks', () => {
     expect((await s.as.sitter.get(`/api/due?apiaryId=${s.ids.orchardRow}`)).status).toBe(403);
     expect((await s.as.sitter.post(`/api/tasks/${enc(key)}/done`).send({})).status).toBe(403);
     s.clock.set(NOW);
+  });
+
+  it('follows edits, deletes and renames made straight in the database (the cache is keyed by trigger-set stamps)', async () => {
+    const db = s.testDb.db;
+    const extra = await addHive(s, s.ids.orchardRow, 'Test Elm');
+    const count = await w.miteCount(extra, '2026-06-06', { mites: 15, beesSampled: 300 });
+    const rules = async () => (await due(s.as.keeper, `?hiveId=${extra}`)).map((t) => t.rule).sort();
+    expect(await rules()).toEqual(['next-inspection', 'treat-varroa']);
+    await db.update(miteCounts).set({ mites: 1 }).where(eq(miteCounts.id, count)); // 1 in 300: low (§3)
+    expect(await rules()).toEqual(['next-inspection']);
+    const check = await w.inspection(extra, '2026-06-07', { queenCells: [{ kind: 'swarm', count: 1, capped: true }] });
+    expect(await rules()).toEqual(['new-queen-laying-check', 'queen-cells-visit']);
+    await db.delete(inspections).where(eq(inspections.id, check));
+    expect(await rules()).toEqual(['next-inspection']);
+    await db.update(hives).set({ name: 'Test Elm II' }).where(eq(hives.id, extra));
+    expect((await due(s.as.keeper, `?hiveId=${extra}`))[0]!.title).toMatch(/Test Elm II/);
   });
 
   it('dueForApiary returns what falls due in a window, for the Handover brief', async () => {
