@@ -1,6 +1,7 @@
 import type { DemoIds } from './seed';
 import type { Db } from './client';
 import { seedRecords } from './seed-records';
+import { seedSensors } from './seed-sensors';
 
 export type SeedTx = Parameters<Parameters<Db['transaction']>[0]>[0];
 
@@ -8,4 +9,4 @@ export type SeedTx = Parameters<Parameters<Db['transaction']>[0]>[0];
 export type SeedExtension = (tx: SeedTx, ids: DemoIds, now: Date) => Promise<void>;
 
 /** Each feature adds its own entry here (records, sensor logs, invitations…), in dependency order. */
-export const seedExtensions: SeedExtension[] = [seedRecords];
+export const seedExtensions: SeedExtension[] = [seedRecords, seedSensors];

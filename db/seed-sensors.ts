@@ -1,10 +1,13 @@
 /**
  * Demo hive-scale and brood-temperature log for the hive Ash (Orchard Row). Invented data: a
- * reading every two hours from 1 March to 31 October (about 2,900 rows, one insert), with a
- * spring build-up gain, a harvest step, a summer dearth loss and the autumn decline of the brood
- * nest. Readings stop at `now`. No number here is a reference value.
+ * reading every two hours from 1 March to 31 October (about 2,900 rows, batch inserts), with a
+ * spring build-up gain, a summer dearth loss and the autumn decline of the brood nest. Ash's own
+ * demo harvests take weight off and its feedings put weight on, on the days they were recorded,
+ * so the scale and the records tell one story. Readings stop at `now`. No number here is a
+ * reference value.
  */
-import { sensorReadings } from './schema';
+import { asc, eq } from 'drizzle-orm';
+import { feedings, harvests, inspections, sensorReadings } from './schema';
 import type { SeedExtension } from './seed-extensions';
 
 const HOUR = 3_600_000;
@@ -36,7 +39,18 @@ function dailyTrendKg(date: Date): number {
 export const seedSensors: SeedExtension = async (tx, ids, now) => {
   const hiveId = ids.hives.Ash;
   if (!hiveId) return;
-  const year = now.getUTCMonth() < 2 ? now.getUTCFullYear() - 1 : now.getUTCFullYear();
+  // The season of Ash's demo records when there are any, else the one `now` is in.
+  const [firstCheck] = await tx.select({ at: inspections.occurredAt }).from(inspections).where(eq(inspections.hiveId, hiveId)).orderBy(asc(inspections.occurredAt)).limit(1);
+  const year = firstCheck ? firstCheck.at.getUTCFullYear() : now.getUTCMonth() < 2 ? now.getUTCFullYear() - 1 : now.getUTCFullYear();
+  // Weight changes by hand: a harvested super comes off with its box and frames (about 3 kg more
+  // than the honey, invented), syrup goes on at about 1.3 kg a litre (invented round figure).
+  const steps: { at: number; kg: number }[] = [];
+  for (const h of await tx.select().from(harvests).where(eq(harvests.hiveId, hiveId))) {
+    steps.push({ at: h.occurredAt.getTime(), kg: -((h.weightKg ?? 10) + 3 * Math.max(1, h.supers)) });
+  }
+  for (const f of await tx.select().from(feedings).where(eq(feedings.hiveId, hiveId))) {
+    steps.push({ at: f.occurredAt.getTime(), kg: f.amountL != null ? f.amountL * 1.3 : f.amountKg ?? 0 });
+  }
   const start = Date.UTC(year, 2, 1);
   const end = Math.min(Date.UTC(year, 10, 1), now.getTime());
   const rnd = noise(20260301);
@@ -46,8 +60,7 @@ export const seedSensors: SeedExtension = async (tx, ids, now) => {
     const at = new Date(t);
     const hour = at.getUTCHours();
     if (hour === 0) trendKg += dailyTrendKg(new Date(t - DAY)) + rnd() * 0.08;
-    // The honey supers came off on 8 July (invented): a step down.
-    if (at.getUTCMonth() === 6 && at.getUTCDate() === 8 && hour === 12) trendKg -= 14;
+    for (const step of steps) if (step.at > t - 2 * HOUR && step.at <= t) trendKg += step.kg;
     // Within a day foragers leave in the morning and come back loaded in the afternoon.
     const flying = hour >= 8 && hour <= 18 ? -0.35 * Math.sin(((hour - 8) / 10) * Math.PI) : 0;
     const m = at.getUTCMonth() + 1;

@@ -56,6 +56,9 @@ export function ApiaryScreen() {
             </Text>
             <ForageCheckButton apiary={apiary.data} />
             <ApiaryPeopleLinks apiary={apiary.data} />
+            <Link href={{ pathname: '/apiaries/[apiaryId]/season', params: { apiaryId: apiary.data.id } }} asChild>
+              <BigButton testID="open-season-apiary" variant="secondary" label="Season review" />
+            </Link>
           </View>
         )}
 

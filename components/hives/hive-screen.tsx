@@ -85,6 +85,9 @@ export function HiveScreen() {
               <BigButton testID="hive-edit" variant="secondary" label="Edit hive" style={{ marginTop: t.space.xs }} />
             </Link>
           ) : null}
+          <Link href={{ pathname: '/hives/[hiveId]/season', params: { hiveId: h.id } }} asChild>
+            <BigButton testID="open-season-hive" variant="secondary" label="Season review" style={{ marginTop: t.space.xs }} />
+          </Link>
         </View>
         {isWide ? (
           <View style={{ flexDirection: 'row', gap: t.space.xl, alignItems: 'flex-start' }}>

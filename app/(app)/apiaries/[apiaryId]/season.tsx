@@ -1,0 +1,1 @@
+export { ApiarySeasonScreen as default } from '@/components/season/apiary-season-screen';

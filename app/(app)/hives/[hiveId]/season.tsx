@@ -1,0 +1,1 @@
+export { HiveSeasonScreen as default } from '@/components/season/hive-season-screen';

@@ -1,0 +1,1 @@
+export { SensorImportScreen as default } from '@/components/sensors/sensor-import-screen';
