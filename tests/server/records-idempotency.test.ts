@@ -13,6 +13,9 @@ import { canonicalJson } from '../../server/middleware/idempotency';
 import { DEMO_PASSWORD, DEMO_USERS } from '../../db/seed';
 import { startDemoServer, type DemoServer } from '../helpers/server';
 
+// Booting a seeded demo server can pass 5 s on a loaded 2-core machine; the tests themselves are quick.
+jest.setTimeout(30_000);
+
 describe('Idempotency-Key on record creates', () => {
   let s: DemoServer;
   let ash: string;

@@ -3,6 +3,9 @@ import { count, eq } from 'drizzle-orm';
 import { colonyEvents, feedings, forageChecks, harvests, inspections, miteCounts, queenEvents, treatments } from '../../db/schema';
 import { startDemoServer, type DemoServer } from '../helpers/server';
 
+// Booting a seeded demo server can pass 5 s on a loaded 2-core machine; the tests themselves are quick.
+jest.setTimeout(30_000);
+
 describe('demo season of records', () => {
   let s: DemoServer;
   beforeAll(async () => {

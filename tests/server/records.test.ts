@@ -8,6 +8,9 @@ import { auditLog, feedings, inspections, miteCounts, treatments } from '../../d
 import { RECORD_KIND_PATHS } from '../../shared/schemas/records';
 import { startDemoServer, type DemoServer } from '../helpers/server';
 
+// Booting a seeded demo server can pass 5 s on a loaded 2-core machine; the tests themselves are quick.
+jest.setTimeout(30_000);
+
 const DAY = 86_400_000;
 
 describe('hive records', () => {
