@@ -5,6 +5,7 @@
  */
 import { fireEvent, render, screen } from '@testing-library/react-native';
 import { SeasonChart, marksOf, nearestMark } from '@/components/season/season-chart';
+import { arrangeRecords } from '@/components/season/season-table';
 import type { HiveSeason, SeasonReferences } from '@/shared/schemas/season';
 
 const references: SeasonReferences = {
@@ -105,5 +106,30 @@ describe('SeasonChart', () => {
     expect(marks.map((m) => m.id)).toEqual(['f1', 'i1', 'i2', 'i3', 'm1', 'hv1', 'm2', 't1', 'f2']);
     expect(nearestMark(marks, Date.parse('2025-07-08T00:00:00Z'))?.id).toBe('hv1');
     expect(nearestMark([], 0)).toBeNull();
+  });
+});
+
+describe('the season table', () => {
+  const rec = (id: string, kind: 'inspection' | 'feeding' | 'harvest', at: string, hiveId: string, hiveName: string) => ({ id, kind, at, hiveId, hiveName, summary: '', recordedBy: '', note: '' });
+  const rows = [
+    rec('a', 'inspection', '2025-05-01T10:00:00Z', 'h2', 'Bramble'),
+    rec('b', 'feeding', '2025-04-01T10:00:00Z', 'h1', 'Ash'),
+    rec('c', 'harvest', '2025-07-01T10:00:00Z', 'h1', 'Ash'),
+    rec('d', 'inspection', '2025-03-01T10:00:00Z', 'h1', 'Ash'),
+  ];
+
+  it.each([
+    ['newest', ['c', 'a', 'b', 'd']],
+    ['oldest', ['d', 'b', 'a', 'c']],
+    ['kind', ['b', 'c', 'd', 'a']],
+    ['hive', ['d', 'b', 'c', 'a']],
+  ] as const)('sorts %s first', (sort, ids) => {
+    expect(arrangeRecords(rows, sort, [], []).map((r) => r.id)).toEqual(ids);
+  });
+
+  it('filters by kind and by hive (none chosen: all)', () => {
+    expect(arrangeRecords(rows, 'oldest', ['inspection'], []).map((r) => r.id)).toEqual(['d', 'a']);
+    expect(arrangeRecords(rows, 'oldest', ['inspection'], ['h2']).map((r) => r.id)).toEqual(['a']);
+    expect(arrangeRecords(rows, 'oldest', [], [])).toHaveLength(4);
   });
 });
