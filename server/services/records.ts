@@ -123,12 +123,20 @@ async function loadRows(db: Conn, kind: RecordFormKind, where: SQL | undefined, 
   });
 }
 
-function fieldsOf(row: Row): Record<string, unknown> {
-  return Object.fromEntries(Object.entries(row).filter(([k]) => !META_COLUMNS.has(k)));
+/** Each kind's own fields, from its shared schema: a column added for bookkeeping never leaks into a DTO. */
+const FIELD_KEYS: Readonly<Record<RecordFormKind, readonly string[]>> = (() => {
+  const shapes = recordSchemas();
+  return Object.fromEntries(
+    (Object.keys(RECORD_KINDS_TABLE) as RecordFormKind[]).map((k) => [k, Object.keys(shapes[k].update.shape).filter((f) => !META_COLUMNS.has(f))]),
+  ) as Record<RecordFormKind, string[]>;
+})();
+
+function fieldsOf(kind: RecordFormKind, row: Row): Record<string, unknown> {
+  return Object.fromEntries(FIELD_KEYS[kind].map((k) => [k, row[k]]));
 }
 
 function toDto<K extends RecordFormKind>(kind: K, row: Row, apiaryId: string, creatorName: string, updatedBy: { id: string; name: string } | null): RecordDto<K> {
-  const fields = fieldsOf(row);
+  const fields = fieldsOf(kind, row);
   const dto = {
     id: row.id,
     recordKind: kind,
