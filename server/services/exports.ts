@@ -162,6 +162,16 @@ export const EXPORT_TABLES: ExportTable[] = [
   { key: 'auditLog', table: schema.auditLog, scope: 'apiary' },
 ];
 
+/** Tables deliberately not in the export, by SQL name, and why. */
+export const EXPORT_LEFT_OUT: Record<string, string> = {
+  users: 'accounts are named by e-mail, never copied (no password hashes)',
+  sessions: 'sign-ins belong to the server they were made on',
+  password_resets: 'single-use secrets',
+  invitations: 'pending e-mailed links cannot move to another account',
+  idempotency_keys: 'a 24-hour replay guard for writes',
+  hive_record_stamps: 'a cache key the Due list rebuilds on the next record write',
+};
+
 export const EXPORT_NOTES = [
   'Photos: their details (hive, check, frame, size) are here; the image files themselves are not.',
   'People other than you are named by e-mail; an import links them to accounts with that e-mail on the server it goes to.',

@@ -4,6 +4,9 @@
  */
 import { startDemoServer, type DemoServer } from '../helpers/server';
 
+// Booting a demo database takes a few seconds on a busy machine.
+jest.setTimeout(60_000);
+
 let s: DemoServer;
 beforeAll(async () => {
   s = await startDemoServer();
