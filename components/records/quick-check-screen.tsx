@@ -1,5 +1,5 @@
 import { useLocalSearchParams } from 'expo-router';
-import { useMemo } from 'react';
+import { useMemo, useState } from 'react';
 import { View } from 'react-native';
 import { cautionsFor } from '@/shared/domain/cautions';
 import { frameCapacity, type Box } from '@/shared/domain/hives';
@@ -19,7 +19,7 @@ import {
 } from '@/shared/domain/records';
 import { inspectionCreateSchema, RECORD_LIMITS, type InspectionCreateInput, type InspectionDto } from '@/shared/schemas/records';
 import { useHiveQuery } from '@/components/api/hives';
-import { useHiveRecordsQuery } from '@/components/api/records';
+import { useHiveRecordsQuery, useRecordQuery } from '@/components/api/records';
 import { useNow } from '@/components/layout/use-now';
 import { useTheme } from '@/components/theme/use-theme';
 import { BigButton } from '@/components/ui/big-button';
@@ -108,6 +108,33 @@ export function quickCheckStart(previous: InspectionDto | undefined): QuickCheck
   };
 }
 
+/** A stored check as the form holds it, to edit it: every field, its own visit time. */
+export function quickCheckFromRecord(r: InspectionDto): QuickCheckValues {
+  const cells = noCells();
+  for (const c of r.queenCells) cells[c.kind][c.capped ? 'capped' : 'open'] += c.count;
+  return {
+    visitTime: 'now',
+    occurredAt: r.occurredAt,
+    framesBrood: r.framesBrood,
+    framesBees: r.framesBees,
+    honeyFrames: r.honeyFrames,
+    pollenFrames: r.pollenFrames,
+    queenStatus: r.queenStatus,
+    eggsSeen: r.eggsSeen,
+    youngLarvaeSeen: r.youngLarvaeSeen,
+    cellsSeen: r.queenCells.length > 0,
+    cells,
+    broodPattern: r.broodPattern,
+    temperament: r.temperament,
+    diseaseSigns: [...r.diseaseSigns],
+    spaceActions: [...r.spaceActions],
+    weather: r.weather,
+    airTempC: r.airTempC,
+    note: r.note,
+    basedOn: null,
+  };
+}
+
 /** The request body for a draft; `occurredAt` must already be fixed. */
 export function quickCheckBody(v: QuickCheckValues, occurredAt: string): InspectionCreateInput {
   const queenCells = v.cellsSeen
@@ -184,12 +211,21 @@ const cellsSeenOptions = [
   { value: 'seen' as const, label: 'Queen cells seen' },
 ];
 
-/** The Quick check: /hives/[hiveId]/check. */
+/** The Quick check: /hives/[hiveId]/check, or /hives/[hiveId]/check?recordId=… to edit a saved one. */
 export function QuickCheckScreen() {
-  const { hiveId } = useLocalSearchParams<{ hiveId: string }>();
+  const { hiveId, recordId } = useLocalSearchParams<{ hiveId: string; recordId?: string }>();
   const hive = useHiveQuery(hiveId);
-  const previous = useHiveRecordsQuery(hiveId, 'inspection');
+  const previous = useHiveRecordsQuery(recordId ? undefined : hiveId, 'inspection');
+  const record = useRecordQuery('inspection', recordId);
+  const [stale, setStale] = useState(false);
 
+  if (recordId && (record.isPending || record.isError)) {
+    return (
+      <Screen title="Quick check">
+        {record.isPending ? <Loading label="Loading the check…" /> : <LoadError error={record.error} onRetry={() => void record.refetch()} />}
+      </Screen>
+    );
+  }
   if (hive.isPending || hive.isError) {
     return (
       <Screen title="Quick check">
@@ -197,8 +233,14 @@ export function QuickCheckScreen() {
       </Screen>
     );
   }
+  const editing = recordId && record.data ? record.data : null;
   return (
     <QuickCheckForm
+      // A stale edit brings the current version; the form starts again from it.
+      key={editing ? `edit-${editing.version}` : 'new'}
+      editing={editing}
+      stale={stale}
+      onStale={() => setStale(true)}
       hiveId={hive.data.id}
       hiveName={hive.data.name}
       capacity={frameCapacity(hive.data.boxes)}
@@ -217,23 +259,32 @@ interface QuickCheckFormProps {
   boxes: readonly Box[];
   previousReady: boolean;
   previous: InspectionDto | undefined;
+  /** The saved check being edited, or null for a new one. */
+  editing: InspectionDto | null;
+  /** True after a save found that someone else had changed the check first. */
+  stale: boolean;
+  onStale: () => void;
 }
 
-function QuickCheckForm({ hiveId, hiveName, capacity, boxes, previousReady, previous }: QuickCheckFormProps) {
+function QuickCheckForm({ hiveId, hiveName, capacity, boxes, previousReady, previous, editing, stale, onStale }: QuickCheckFormProps) {
   const t = useTheme();
   const now = useNow();
   const form = useRecordForm({
     kind: 'inspection',
     ownerId: hiveId,
-    ready: previousReady,
-    initial: () => quickCheckStart(previous),
+    ready: editing ? true : previousReady,
+    initial: () => (editing ? quickCheckFromRecord(editing) : quickCheckStart(previous)),
+    edit: editing ? { recordId: editing.id, version: editing.version } : null,
+    onStale,
     build: quickCheckBody,
     schema: inspectionCreateSchema,
     extraCheck: (x) =>
       Math.max(x.framesBrood, x.framesBees, x.honeyFrames, x.pollenFrames) > capacity ? `This hive’s boxes hold ${capacity} frames; lower the frame counts.` : null,
     leaveTo: { pathname: '/hives/[hiveId]', params: { hiveId } },
     // The check's photos waited with the draft; now that the check has an id they can go.
-    onSaved: (record) => void sendCheckPhotos(draftStorageKey('inspection', hiveId), record.id),
+    onSaved: (record) => {
+      if (!editing) void sendCheckPhotos(draftStorageKey('inspection', hiveId), record.id);
+    },
   });
   const { draft, set } = form;
   const v = draft.values;
@@ -263,7 +314,13 @@ function QuickCheckForm({ hiveId, hiveName, capacity, boxes, previousReady, prev
     />
   );
 
-  const basis = v.basedOn ? (
+  const basis = editing ? (
+    <Notice tone={stale ? 'warning' : 'info'} title={stale ? 'Someone else saved this check first' : `Editing the check of ${shortDateOfInstant(editing.occurredAt)}`} testID="quick-check-editing">
+      {stale
+        ? `It now shows their version (saved by ${editing.updatedBy?.name ?? editing.createdBy.name}). Make your change again and save.`
+        : `Recorded by ${editing.createdBy.name}. Saving changes this check; it does not add a new one.`}
+    </Notice>
+  ) : v.basedOn ? (
     <Notice tone="info" title={`Same as last time — ${shortDateOfInstant(v.basedOn.occurredAt)}`} testID="quick-check-basis">
       Frames, queen, brood pattern and temperament start from that check: change what changed. Cells, signs, actions and weather start empty.
     </Notice>
@@ -362,9 +419,11 @@ function QuickCheckForm({ hiveId, hiveName, capacity, boxes, previousReady, prev
           />
         )}
       </FormGroup>
-      <FormGroup title="Frame photos">
-        <PhotoPicker hiveId={hiveId} boxes={boxes} draftKey={draftStorageKey('inspection', hiveId)} sendWith="check" testID="check-photo-picker" />
-      </FormGroup>
+      {editing ? null : (
+        <FormGroup title="Frame photos">
+          <PhotoPicker hiveId={hiveId} boxes={boxes} draftKey={draftStorageKey('inspection', hiveId)} sendWith="check" testID="check-photo-picker" />
+        </FormGroup>
+      )}
       <FormGroup title="Note">
         <NoteField value={v.note} onChange={(note) => set({ note })} max={RECORD_LIMITS.noteChars} />
       </FormGroup>
@@ -373,7 +432,7 @@ function QuickCheckForm({ hiveId, hiveName, capacity, boxes, previousReady, prev
 
   return (
     <RecordFormScreen
-      title="Quick check"
+      title={editing ? 'Edit check' : 'Quick check'}
       subject={hiveName}
       backHref={{ pathname: '/hives/[hiveId]', params: { hiveId } }}
       testID="quick-check-screen"
@@ -385,7 +444,7 @@ function QuickCheckForm({ hiveId, hiveName, capacity, boxes, previousReady, prev
       }
       left={left}
       right={right}
-      bottomBar={<SaveBar testID="quick-check-save" label="Save check" onSave={form.save} saving={form.saving} error={form.error} />}
+      bottomBar={<SaveBar testID="quick-check-save" label={editing ? 'Save changes' : 'Save check'} onSave={form.save} saving={form.saving} error={form.error} />}
     />
   );
 }

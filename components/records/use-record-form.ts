@@ -2,7 +2,7 @@ import type { Href } from 'expo-router';
 import { useCallback, useState } from 'react';
 import type { ZodType } from 'zod';
 import type { RecordFormKind } from '@/shared/schemas/records';
-import { useRecordCreateMutation, type CreateInputByKind } from '@/components/api/records';
+import { staleRecordOf, useRecordCreateMutation, useRecordUpdateMutation, type CreateInputByKind, type UpdateInputByKind } from '@/components/api/records';
 import { useLeaveAfterSave } from './use-leave-after-save';
 import { draftStorageKey, useRecordDraft, type RecordDraft } from './use-record-draft';
 import { visitInstant, type VisitTime } from './when';
@@ -29,6 +29,13 @@ export interface RecordFormOptions<K extends RecordFormKind, V extends TimedValu
   leaveTo: Href;
   /** Called with the stored record just before leaving (the Quick check sends its photos then). */
   onSaved?: (record: { id: string }) => void;
+  /**
+   * Edit a stored record instead of creating one: the draft is kept under the record's id and
+   * Save sends a PATCH with the version the form started from.
+   */
+  edit?: { recordId: string; version: number } | null;
+  /** A stale edit (409): someone saved first. The draft is dropped; the caller shows their version. */
+  onStale?: () => void;
 }
 
 export interface RecordForm<V extends TimedValues> {
@@ -47,8 +54,12 @@ export interface RecordForm<V extends TimedValues> {
  * fixed draft is resent under the same key; "already being processed" (409) is retried as is.
  */
 export function useRecordForm<K extends RecordFormKind, V extends TimedValues>(o: RecordFormOptions<K, V>): RecordForm<V> {
-  const draft = useRecordDraft<V>(draftStorageKey(o.kind, o.ownerId), o.ready ?? true, o.initial);
+  const editing = o.edit ?? null;
+  const storageKey = editing ? draftStorageKey(`${o.kind}-edit`, editing.recordId) : draftStorageKey(o.kind, o.ownerId);
+  const draft = useRecordDraft<V>(storageKey, o.ready ?? true, o.initial);
   const create = useRecordCreateMutation(o.kind, o.ownerId);
+  const update = useRecordUpdateMutation(o.kind, editing?.recordId ?? '');
+  const pending = create.isPending || update.isPending;
   const leave = useLeaveAfterSave(o.leaveTo);
   const [formError, setFormError] = useState<unknown>(null);
 
@@ -56,15 +67,16 @@ export function useRecordForm<K extends RecordFormKind, V extends TimedValues>(o
     (change: Partial<V> | ((v: V) => V)) => {
       setFormError(null);
       create.reset();
+      update.reset();
       draft.update(change);
     },
     // eslint-disable-next-line react-hooks/exhaustive-deps
-    [draft.update, create.reset],
+    [draft.update, create.reset, update.reset],
   );
 
   const save = () => {
     const v = draft.values;
-    if (!v || create.isPending) return;
+    if (!v || pending) return;
     const occurredAt = v.occurredAt ?? visitInstant(v.visitTime, new Date());
     const input = o.build(v, occurredAt);
     const parsed = o.schema.safeParse(input);
@@ -81,18 +93,25 @@ export function useRecordForm<K extends RecordFormKind, V extends TimedValues>(o
     if (v.occurredAt === null) draft.update({ occurredAt } as Partial<V>);
     else draft.persist();
     setFormError(null);
-    create.mutate(
-      { input, idempotencyKey: draft.idempotencyKey },
-      {
-        onSuccess: (record) => {
-          draft.clear();
-          o.onSaved?.(record);
-          leave();
+    const saved = (record: { id: string }) => {
+      draft.clear();
+      o.onSaved?.(record);
+      leave();
+    };
+    if (editing) {
+      update.mutate({ ...input, version: editing.version } as UpdateInputByKind[K], {
+        onSuccess: saved,
+        onError: (error) => {
+          if (staleRecordOf(error)) {
+            draft.clear();
+            o.onStale?.();
+          }
         },
-
-      },
-    );
+      });
+      return;
+    }
+    create.mutate({ input, idempotencyKey: draft.idempotencyKey }, { onSuccess: saved });
   };
 
-  return { draft, set, save, saving: create.isPending, error: formError ?? create.error };
+  return { draft, set, save, saving: pending, error: formError ?? create.error ?? update.error };
 }

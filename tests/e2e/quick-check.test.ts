@@ -535,4 +535,46 @@ describe('Quick check and record forms, end to end in Chromium', () => {
       await context.close();
     }
   });
+
+  it('(h) edits a saved check in the same form, and a stale edit shows the newer version instead of overwriting it', async () => {
+    const { context, page } = await newPage(e, PHONE);
+    await signIn(page, KEEPER);
+    await byTestId(page, 'nav-apiaries').waitFor();
+    const hiveId = e.ids.hives.Heather;
+    const check = await postPreviousCheck(page, hiveId);
+    const edit = `/hives/${hiveId}/check?recordId=${check.id}`;
+
+    await page.goto(edit);
+    await byTestId(page, 'quick-check-editing').waitFor();
+    await expect(byTestId(page, 'stepper-framesBrood-value').textContent()).resolves.toBe('5');
+    await byTestId(page, 'stepper-framesBrood-inc').click();
+    await byTestId(page, 'quick-check-save').click();
+    await byTestId(page, 'hive-screen').waitFor();
+    let stored = (await api<{ inspection: InspectionRow & { version: number } }>(page, `/api/inspections/${check.id}`)).body.inspection;
+    expect(stored).toMatchObject({ framesBrood: 5.5, version: 2 });
+    const countAfterEdit = (await inspections(page, hiveId)).length;
+
+    // Open the form, then someone else saves first (version 3): this save must not overwrite theirs.
+    await page.goto(edit);
+    await byTestId(page, 'quick-check-editing').waitFor();
+    const other = await api(page, `/api/inspections/${check.id}`, { method: 'PATCH', body: { version: 2, framesBees: 9 } });
+    expect(other.status).toBe(200);
+    await byTestId(page, 'stepper-framesBrood-inc').click();
+    await byTestId(page, 'quick-check-save').click();
+    await expect(byTestId(page, 'quick-check-editing').textContent()).resolves.toContain('Someone else saved this check first');
+    await expect(byTestId(page, 'stepper-framesBees-value').textContent()).resolves.toBe('9');
+    await expect(byTestId(page, 'stepper-framesBrood-value').textContent()).resolves.toBe('5½');
+    stored = (await api<{ inspection: InspectionRow & { version: number } }>(page, `/api/inspections/${check.id}`)).body.inspection;
+    expect(stored).toMatchObject({ framesBrood: 5.5, framesBees: 9, version: 3 });
+
+    // Made again on their version, the change saves.
+    await byTestId(page, 'stepper-framesBrood-inc').click();
+    await byTestId(page, 'quick-check-save').click();
+    await byTestId(page, 'hive-screen').waitFor();
+    stored = (await api<{ inspection: InspectionRow & { version: number } }>(page, `/api/inspections/${check.id}`)).body.inspection;
+    expect(stored).toMatchObject({ framesBrood: 6, framesBees: 9, version: 4 });
+    // Edits never add a record.
+    expect((await inspections(page, hiveId)).length).toBe(countAfterEdit);
+    await context.close();
+  });
 });
