@@ -7,6 +7,9 @@ const alias = { '^@/(.*)$': '<rootDir>/$1' };
 const ignore = ['/node_modules/', '/dist/', '/.pg/'];
 
 module.exports = {
+  // Server and browser tests boot a seeded database per file; on two busy cores that can take
+  // longer than Jest's 5 s default. A hung test still fails, just later.
+  testTimeout: 30_000,
   projects: [
     {
       displayName: 'shared',
