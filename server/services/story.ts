@@ -6,7 +6,7 @@
  */
 import { and, eq, sql } from 'drizzle-orm';
 import { PgDialect } from 'drizzle-orm/pg-core';
-import { apiaries, hives, memberships } from '../../db/schema';
+import { apiaries, hiveRecordStamps, hives, memberships } from '../../db/schema';
 import { broodCalendar } from '../../shared/domain/brood';
 import { addDays, monthOf, utcMsToDate, yearOf, type IsoDate } from '../../shared/domain/dates';
 import { DUE_INTERVALS, TREATMENT_DEFAULTS } from '../../shared/domain/due';
@@ -62,13 +62,15 @@ function accessQuery(db: Ctx['db']) {
       role: memberships.role,
       startsAt: memberships.startsAt,
       endsAt: memberships.endsAt,
+      stamp: hiveRecordStamps.stamp,
     })
     .from(hives)
     .innerJoin(apiaries, eq(apiaries.id, hives.apiaryId))
+    .leftJoin(hiveRecordStamps, eq(hiveRecordStamps.hiveId, hives.id))
     .leftJoin(memberships, and(eq(memberships.apiaryId, hives.apiaryId), eq(memberships.userId, sql.placeholder('userId'))))
     .where(eq(hives.id, sql.placeholder('hiveId')))
     .limit(1)
-    .prepare('hive_story_access_v1');
+    .prepare('hive_story_access_v2');
 }
 const accessQueries = new WeakMap<Ctx['db'], ReturnType<typeof accessQuery>>();
 
@@ -172,6 +174,11 @@ export async function getStory(ctx: Ctx, user: SessionUser, hiveId: string, opts
   const today = utcMsToDate(ctx.now().getTime());
   const season = opts.season ?? seasonOfDate(today, hive.hemisphere);
   const { from, to } = seasonRange(season, hive.hemisphere);
+  const cacheKey = `${hive.stamp ?? 0}|${hive.hemisphere}|${hive.name}|${hive.apiaryName}|${JSON.stringify(hive.boxes)}`;
+  const cache = storyCacheOf(ctx.db);
+  const hit = cache.get(`${hive.id}|${season}`);
+  if (hit && hit.key === cacheKey) return { ...hit.story, items: await attachPhotos(ctx, hit.story.items.map((i) => ({ ...i }))) };
+
   // A named (prepared) statement: the ten-part union costs more to plan than to run.
   const q = dialect.sqlToQuery(storySql(hive.id, hive.apiaryId, from, to));
   const result = await ctx.db.$client.query<StoryRow>({ name: STORY_STATEMENT, text: q.sql, values: q.params as unknown[] });
@@ -183,16 +190,29 @@ export async function getStory(ctx: Ctx, user: SessionUser, hiveId: string, opts
     const last = seasonOfDate(isoDay(span.last), hive.hemisphere);
     for (let y = last; y >= first; y--) seasons.push(y);
   }
+  const story: StoryDto = { hiveId: hive.id, hiveName: hive.name, apiaryId: hive.apiaryId, apiaryName: hive.apiaryName, season, from, to, seasons, items };
+  cache.set(`${hive.id}|${season}`, { key: cacheKey, story });
+  return { ...story, items: await attachPhotos(ctx, items.map((i) => ({ ...i }))) };
+}
+
+/**
+ * Built stories (before photos), reused while the hive's change stamp — set by database triggers
+ * on every write to its records, its harvests and its apiary's forage checks — and its names and
+ * boxes are unchanged. Photos are attached on every request. One cache per database, bounded.
+ */
+const MAX_CACHED_STORIES = 5_000;
+const storyCaches = new WeakMap<Ctx['db'], Map<string, { key: string; story: StoryDto }>>();
+function storyCacheOf(db: Ctx['db']) {
+  let c = storyCaches.get(db);
+  if (!c) storyCaches.set(db, (c = new Map()));
+  const map = c;
   return {
-    hiveId: hive.id,
-    hiveName: hive.name,
-    apiaryId: hive.apiaryId,
-    apiaryName: hive.apiaryName,
-    season,
-    from,
-    to,
-    seasons,
-    items: await attachPhotos(ctx, items),
+    get: (k: string) => map.get(k),
+    set: (k: string, v: { key: string; story: StoryDto }) => {
+      map.delete(k);
+      map.set(k, v);
+      while (map.size > MAX_CACHED_STORIES) map.delete(map.keys().next().value!);
+    },
   };
 }
 

@@ -4,6 +4,8 @@
  * Derived dates name their source in TRADE-REFERENCES.md.
  */
 import request from 'supertest';
+import { eq } from 'drizzle-orm';
+import { forageChecks, harvests } from '../../db/schema';
 import type { StoryDto, StoryItemDto } from '../../shared/schemas/story';
 import { addHive, recordWriter, startDueServer, type DueServer } from '../helpers/due-fixtures';
 
@@ -97,6 +99,19 @@ describe('GET /api/hives/:hiveId/story', () => {
     expect((await story(s.as.keeper, '?season=2019')).items).toEqual([]);
     expect((await s.as.keeper.get(`/api/hives/${hive}/story?season=last`)).status).toBe(400);
     expect((await s.as.keeper.get(`/api/hives/${hive}/story?season=2026&x=1`)).status).toBe(400);
+  });
+
+  it('shows a record written after the story was read (the cache follows trigger-set stamps, forage checks included)', async () => {
+    const before = await story(s.as.keeper);
+    const w = recordWriter(s, s.ids.users.keeper);
+    const harvest = await w.harvest(hive, '2026-08-10', { weightKg: 9 });
+    const forage = await w.forageCheck(s.ids.orchardRow, '2026-08-11', { judgement: 'flow', minutesToEmpty: null });
+    const after = await story(s.as.keeper);
+    expect(after.items.length).toBe(before.items.length + 2);
+    expect(after.items.map((i) => i.id)).toEqual(expect.arrayContaining([harvest, forage]));
+    await s.testDb.db.delete(harvests).where(eq(harvests.id, harvest));
+    await s.testDb.db.delete(forageChecks).where(eq(forageChecks.id, forage));
+    expect((await story(s.as.keeper)).items.map((i) => i.id)).toEqual(before.items.map((i) => i.id));
   });
 
   it('access: members read it; the sitter only on their site; strangers 404; signed out 401', async () => {
