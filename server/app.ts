@@ -91,9 +91,10 @@ export function createApp(opts: AppOptions): CreatedApp {
   if (opts.devOrigin) app.use('/api', devCors(opts.devOrigin));
   // CSRF: writes must come from the app's own origin (SameSite=Lax on the cookie is the other layer).
   app.use('/api', sameOrigin({ publicUrl: ctx.publicUrl, devOrigin: opts.devOrigin }));
-  // An account export (POST /api/import) can run to megabytes; everything else stays small.
-  app.use('/api/import', express.json({ limit: '50mb' }));
-  app.use('/api', express.json({ limit: '256kb' }));
+  // Bodies stay small, except an account export (POST /api/import), which its route reads
+  // itself after the sign-in check, so a stranger cannot make the server parse megabytes.
+  const smallJson = express.json({ limit: '256kb' });
+  app.use('/api', (req, res, next) => (req.path === '/import' ? next() : smallJson(req, res, next)));
 
   const sOpts = sessionOptions(opts.sessionPassword, opts.secureCookies ?? false);
   app.use('/api', sessionMiddleware(ctx, sOpts));

@@ -8,7 +8,7 @@
  *   POST /api/import   body: an export (application/json, up to 50 MB) → 201 { result: ImportResult }
  *        into an account that owns nothing yet (409 otherwise); one transaction.
  */
-import type { Response } from 'express';
+import express, { type Response } from 'express';
 import { exportSeasonQuerySchema } from '../../shared/schemas/exports';
 import { userOf } from '../middleware/session';
 import { query } from '../middleware/validate';
@@ -56,7 +56,8 @@ export const exportRoutes: RouteFactory = (ctx) => [
     method: 'post',
     path: '/api/import',
     auth: true,
-    // The 50 MB body limit for this path is set in createApp, before the small general one.
+    // Read here, after the sign-in check (createApp leaves this path to its route).
+    before: [express.json({ limit: '50mb' })],
     handler: async (req, res) => {
       res.status(201).json({ result: await exportsService.importAccount(ctx, userOf(req), req.body) });
     },
