@@ -29,6 +29,8 @@ import type { SensorImportResult } from '@/shared/schemas/sensors';
 import { CsvFilePicker, type PickedFile } from './file-picker';
 
 const NONE = '__none__';
+
+const count = (n: number, one: string) => `${n.toLocaleString('en-GB')} ${one}${n === 1 ? '' : 's'}`;
 const PREVIEW_ROWS = 8;
 
 const TIME_FORMAT_OPTIONS: { value: TimeFormat; label: string }[] = [
@@ -236,7 +238,7 @@ export function SensorImportScreen() {
             ) : (
               <View style={{ gap: t.space.sm }} testID="sensor-check">
                 <Text variant="bodyStrong" testID="sensor-check-summary">
-                  {`${check.rows.toLocaleString('en-GB')} rows: ${check.readings.toLocaleString('en-GB')} readings${check.bad.length ? `, ${check.bad.length.toLocaleString('en-GB')} bad rows to skip` : ''}${check.repeated ? `, ${check.repeated} repeating a time` : ''}.`}
+                  {`${count(check.rows, 'row')}: ${count(check.readings, 'reading')}${check.bad.length ? `, ${count(check.bad.length, 'bad row')} to skip` : ''}${check.repeated ? `, ${count(check.repeated, 'row')} repeating a time` : ''}.`}
                 </Text>
                 {check.first.map((r) => (
                   <Text key={r.atMs} tone="muted">

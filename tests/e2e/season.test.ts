@@ -173,7 +173,7 @@ describe('Season review, end to end', () => {
     expect(await byTestId(page, 'sensor-preview-row').count()).toBe(4);
     await byTestId(page, 'chips-sensor-time-format-dmy').click();
     await byTestId(page, 'chips-sensor-time-zone-UTC').click();
-    await expect(byTestId(page, 'sensor-check-summary').textContent()).resolves.toBe('4 rows: 3 readings, 1 bad rows to skip.');
+    await expect(byTestId(page, 'sensor-check-summary').textContent()).resolves.toBe('4 rows: 3 readings, 1 bad row to skip.');
     await expect(byTestId(page, 'sensor-bad-rows').textContent()).resolves.toMatch(/line 4: temperature "kaputt" is not a number/);
     await shot(page, 'sensor-import');
     await byTestId(page, 'sensor-import-submit').click();
