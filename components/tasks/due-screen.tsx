@@ -75,6 +75,9 @@ export function DueScreen() {
                 </View>
               );
             })}
+            <Text tone="muted" testID="due-horizon">
+              Shows what is overdue and what falls due in the next 14 days.
+            </Text>
           </>
         )}
       </View>

@@ -12,6 +12,9 @@ import { Text } from '@/components/ui/text';
 import { broodCalendar, type BroodAnchor, type Caste } from '@/shared/domain/brood';
 import { addDays } from '@/shared/domain/dates';
 
+/** "30 Sept": short enough for the stepper's value box on a 390 px phone. */
+const shortDay = (iso: string) => new Date(`${iso}T12:00:00Z`).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', timeZone: 'UTC' });
+
 /**
  * Brood calendar: pick a caste and the day an egg was laid or a cell was capped (steppers move
  * the day, no typing) and read off hatching, capping and emergence, and for a queen her
@@ -68,10 +71,10 @@ export function BroodCalendarScreen() {
           onChange={setOffset}
           min={-60}
           max={30}
-          format={(v) => formatDay(addDays(today, v))}
+          format={(v) => shortDay(addDays(today, v))}
           decreaseLabel="One day earlier"
           increaseLabel="One day later"
-          hint={offset === 0 ? 'Today' : offset < 0 ? `${-offset} days ago` : `In ${offset} days`}
+          hint={`${formatDay(date)}: ${offset === 0 ? 'today' : offset < 0 ? `${-offset} ${offset === -1 ? 'day' : 'days'} ago` : `in ${offset} ${offset === 1 ? 'day' : 'days'}`}`}
         />
         <Section title={`${caste === 'queen' ? 'Queen' : caste === 'worker' ? 'Worker' : 'Drone'} timeline`} testID="brood-result">
           {row('Egg laid', cal.eggLaid, 'egg')}

@@ -1,7 +1,7 @@
 /**
  * The Due list and its tasks.
  *
- *   GET  /api/due?apiaryId=&hiveId=        every task due for the signed-in person, overdue first
+ *   GET  /api/due?apiaryId=&hiveId=&days=  overdue tasks, then those due in the next `days` (default 14)
  *   POST /api/tasks                        add a task { apiaryId, hiveId?, title, dueDate, note? }   (task:create)
  *   POST /api/tasks/:taskId/done           mark done                                                 (task:resolve)
  *   POST /api/tasks/:taskId/snooze         snooze { until: YYYY-MM-DD }                              (task:resolve)

@@ -376,7 +376,10 @@ async function collectDue(
   const derived: DerivedTask[] = hiveRows.flatMap((h) => derivedByHive.get(h.id) ?? []);
 
   // Resolutions for exactly the keys derived now: the unique index answers each.
-  const keys = derived.map((t) => t.key);
+  // Snoozing only moves a task later, so a task due after the window cannot come into it.
+  const windowTo = opts.window?.to;
+  const candidates = windowTo ? derived.filter((t) => compareDates(t.dueDate, windowTo) <= 0) : derived;
+  const keys = candidates.map((t) => t.key);
   const resolutions = keys.length
     ? await ctx.db
         .select({ key: tasks.derivedKey, status: tasks.status, snoozedUntil: tasks.snoozedUntil, resolvedAt: tasks.resolvedAt, byId: tasks.resolvedBy, byName: resolver.name })
@@ -388,7 +391,7 @@ async function collectDue(
   const resolutionOf = new Map(resolutions.map((r) => [r.key!, r]));
 
   const out: DueTaskDto[] = [];
-  for (const t of derived) {
+  for (const t of candidates) {
     const r = resolutionOf.get(t.key);
     if (r && (r.status === 'done' || r.status === 'dismissed')) continue;
     const snoozed = r?.status === 'snoozed' && r.snoozedUntil ? r.snoozedUntil : null;
@@ -445,20 +448,31 @@ async function collectDue(
   return sortTasks(inWindow, today);
 }
 
-/** GET /api/due: every task across the apiaries the person may see now, overdue first; filter by apiary or hive. */
-export async function listDue(ctx: Ctx, user: SessionUser, opts: { apiaryId?: string; hiveId?: string } = {}): Promise<DueTaskDto[]> {
+/** How far ahead GET /api/due looks by default: two weeks (Frameside's own choice; `days` widens it). */
+export const DUE_HORIZON_DAYS = 14;
+
+/**
+ * GET /api/due: every task across the apiaries the person may see now, overdue first, then what
+ * falls due in the next `days` (default 14); filter by apiary or hive.
+ */
+export async function listDue(
+  ctx: Ctx,
+  user: SessionUser,
+  opts: { apiaryId?: string; hiveId?: string; days?: number } = {},
+): Promise<DueTaskDto[]> {
+  const window = { from: '1970-01-01', to: addDays(todayOf(ctx), opts.days ?? DUE_HORIZON_DAYS) };
   if (opts.hiveId) {
     const m = await requireHive(ctx, user, opts.hiveId, 'hive:read');
     if (opts.apiaryId && opts.apiaryId !== m.apiaryId) return [];
     const a = await apiaryInfo(ctx.db, m.apiaryId);
-    return a ? collectDue(ctx, [a], { hiveId: opts.hiveId }) : [];
+    return a ? collectDue(ctx, [a], { hiveId: opts.hiveId, window }) : [];
   }
   if (opts.apiaryId) {
     await requireApiary(ctx, user, opts.apiaryId, 'apiary:read');
     const a = await apiaryInfo(ctx.db, opts.apiaryId);
-    return a ? collectDue(ctx, [a], {}) : [];
+    return a ? collectDue(ctx, [a], { window }) : [];
   }
-  return collectDue(ctx, await visibleApiaries(ctx, user), {});
+  return collectDue(ctx, await visibleApiaries(ctx, user), { window });
 }
 
 /**

@@ -29,6 +29,13 @@ export const dueQuerySchema = z
   .object({
     apiaryId: idSchema.optional(),
     hiveId: idSchema.optional(),
+    /** Days ahead to include (default 14); overdue tasks always come. */
+    days: z.coerce
+      .number({ message: 'Days ahead must be a number.' })
+      .int({ message: 'Days ahead must be a whole number.' })
+      .min(1, { message: 'Look at least 1 day ahead.' })
+      .max(366, { message: 'Look at most 366 days ahead.' })
+      .optional(),
   })
   .strict();
 

@@ -44,7 +44,7 @@ describe('GET /api/due and /api/tasks', () => {
   afterAll(() => s.close());
 
   it('derives each rule’s task from the records, with its reason, date and source', async () => {
-    const list = mine(await due(s.as.keeper));
+    const list = mine(await due(s.as.keeper, '?days=60'));
     const byKey = new Map(list.map((t) => [t.key, t]));
     // TRADE-REFERENCES §9 (Trunch BKA): weekly checks in swarm season → 1 June + 7 d.
     const alder = byKey.get(`next-inspection:${h.alder}:${rec.alderCheck}`)!;
@@ -87,8 +87,12 @@ describe('GET /api/due and /api/tasks', () => {
     expect(quarry.length).toBeGreaterThan(0);
     expect(quarry.every((t) => t.apiaryId === s.ids.quarryHill)).toBe(true);
     expect(quarry.some((t) => t.hiveId === h.deal)).toBe(true);
-    const one = await due(s.as.keeper, `?hiveId=${h.birch}`);
+    const one = await due(s.as.keeper, `?hiveId=${h.birch}&days=60`);
     expect(one.map((t) => t.rule).sort()).toEqual(['new-queen-laying-check', 'queen-cells-visit']);
+    // By default the list looks 14 days ahead: the laying check on 7 July is not due soon yet.
+    expect((await due(s.as.keeper, `?hiveId=${h.birch}`)).map((t) => t.rule)).toEqual(['queen-cells-visit']);
+    expect((await s.as.keeper.get('/api/due?days=0')).status).toBe(400);
+    expect((await s.as.keeper.get('/api/due?days=soon')).status).toBe(400);
     expect((await s.as.keeper.get('/api/due?apiaryId=nope')).status).toBe(400);
     expect((await s.as.keeper.get('/api/due?colour=red')).status).toBe(400);
   });
@@ -197,7 +201,7 @@ describe('GET /api/due and /api/tasks', () => {
     const db = s.testDb.db;
     const extra = await addHive(s, s.ids.orchardRow, 'Test Elm');
     const count = await w.miteCount(extra, '2026-06-06', { mites: 15, beesSampled: 300 });
-    const rules = async () => (await due(s.as.keeper, `?hiveId=${extra}`)).map((t) => t.rule).sort();
+    const rules = async () => (await due(s.as.keeper, `?hiveId=${extra}&days=60`)).map((t) => t.rule).sort();
     expect(await rules()).toEqual(['next-inspection', 'treat-varroa']);
     await db.update(miteCounts).set({ mites: 1 }).where(eq(miteCounts.id, count)); // 1 in 300: low (§3)
     expect(await rules()).toEqual(['next-inspection']);
