@@ -76,6 +76,33 @@ describe('invitations by e-mail', () => {
     expect(members.body.members.find((m: { email: string }) => m.email === 'sitter@frameside.test')).toMatchObject({ role: 'viewer', endsAt: null });
   });
 
+  it('signs an existing account in to accept while signed out (a wrong password is refused and uses nothing up)', async () => {
+    await request(s.app).post('/api/auth/sign-up').send({ email: 'helper@example.test', password: 'a-long-helper-pass', name: 'Hal' }).expect(201);
+    await s.as.keeper.post(`/api/apiaries/${s.ids.orchardRow}/invitations`).send({ email: 'helper@example.test', role: 'viewer' }).expect(201);
+    const token = tokenOf(linkIn(await mail.waitFor('helper@example.test', /Invitation to Orchard Row/), '/invite/'));
+    expect((await request(s.app).get(`/api/invitations/${token}`)).body.invitation.accountExists).toBe(true);
+    const wrong = await request(s.app).post(`/api/invitations/${token}/accept`).send({ email: 'helper@example.test', password: 'not-the-password' });
+    expect(wrong.status).toBe(401);
+    const visitor = request.agent(s.app);
+    const ok = await visitor.post(`/api/invitations/${token}/accept`).send({ email: 'helper@example.test', password: 'a-long-helper-pass' });
+    expect(ok.status).toBe(200);
+    expect(ok.body.user.name).toBe('Hal');
+    expect((await visitor.get(`/api/apiaries/${s.ids.orchardRow}`)).body.apiary.myRole).toBe('viewer');
+  });
+
+  it('lets only one of two simultaneous clicks use a link', async () => {
+    await s.as.keeper.post(`/api/apiaries/${s.ids.quarryHill}/invitations`).send({ email: 'twice@example.test', role: 'viewer' }).expect(201);
+    const token = tokenOf(linkIn(await mail.waitFor('twice@example.test', /Invitation/), '/invite/'));
+    const [a, b] = await Promise.all([
+      request(s.app).post(`/api/invitations/${token}/accept`).send({ email: 'twice-a@example.test', password: 'a-long-password-a' }),
+      request(s.app).post(`/api/invitations/${token}/accept`).send({ email: 'twice-b@example.test', password: 'a-long-password-b' }),
+    ]);
+    expect([a.status, b.status].sort()).toEqual([200, 410]);
+    // The refused click left no account behind (one transaction).
+    const loser = a.status === 410 ? { email: 'twice-a@example.test', password: 'a-long-password-a' } : { email: 'twice-b@example.test', password: 'a-long-password-b' };
+    expect((await request(s.app).post('/api/auth/sign-in').send(loser)).status).toBe(401);
+  });
+
   it('refuses an expired link (clock moved past 7 days) with 410, and an unknown one with 404', async () => {
     await s.as.keeper.post(`/api/apiaries/${s.ids.orchardRow}/invitations`).send({ email: 'late@example.test', role: 'keeper' }).expect(201);
     const token = tokenOf(linkIn(await mail.waitFor('late@example.test', /Invitation/), '/invite/'));
