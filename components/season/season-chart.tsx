@@ -30,6 +30,8 @@ export interface SeasonChartProps {
   domain?: [number, number];
   /** Write the legend under the panels (small multiples write it once). */
   legend?: boolean;
+  /** Words for the selected record ("3 Jun · Quick check"), written beside the selection rule. */
+  selectedLabel?: string;
 }
 
 const PAD_LEFT = 48;
@@ -85,7 +87,7 @@ export function nearestMark(marks: readonly ChartMark[], t: number): ChartMark |
  * colour alone, tell the series apart. The whole chart is one big target: a tap (or, with a
  * mouse, hovering) selects the nearest record.
  */
-export function SeasonChart({ hive, from, to, references, width, selectedId, onSelect, compact = false, domain, legend = true }: SeasonChartProps) {
+export function SeasonChart({ hive, from, to, references, width, selectedId, onSelect, compact = false, domain, legend = true, selectedLabel }: SeasonChartProps) {
   const t = useTheme();
   const c = t.colours;
   const w = Math.max(280, Math.round(width));
@@ -355,6 +357,7 @@ export function SeasonChart({ hive, from, to, references, width, selectedId, onS
             {selectedT != null ? (
               <Line testID="season-selection-rule" x1={x(new Date(selectedT))} x2={x(new Date(selectedT))} y1={p.top} y2={p.top + p.height} stroke={c.ink} strokeWidth={2} strokeDasharray="2 3" />
             ) : null}
+            {selectedT != null && selectedLabel && i === 0 ? <SelectionLabel x={x(new Date(selectedT))} y={p.top + 4} text={selectedLabel} width={w} /> : null}
           </G>
         ))}
       </Svg>
@@ -378,6 +381,21 @@ export function SeasonChart({ hive, from, to, references, width, selectedId, onS
         </View>
       ) : null}
     </View>
+  );
+}
+
+/** The selected record's date and kind in a box above the first panel, kept inside the drawing. */
+function SelectionLabel({ x, y, text, width }: { x: number; y: number; text: string; width: number }) {
+  const t = useTheme();
+  const boxW = Math.min(width - PAD_LEFT - PAD_RIGHT, 12 + text.length * 8.2);
+  const left = Math.max(PAD_LEFT, Math.min(width - PAD_RIGHT - boxW, x - boxW / 2));
+  return (
+    <G testID="season-selection-label">
+      <Rect x={left} y={y} width={boxW} height={22} rx={4} fill={t.colours.ink} />
+      <SvgText x={left + boxW / 2} y={y + 16} textAnchor="middle" fill={t.colours.onInk} fontFamily={t.fontFamily.bold} fontSize={14}>
+        {text}
+      </SvgText>
+    </G>
   );
 }
 

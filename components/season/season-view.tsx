@@ -123,6 +123,7 @@ export function SeasonView({ data, seasons, onSeason, header, actions }: SeasonV
                   compact={data.scope === 'apiary'}
                   domain={domain}
                   legend={data.scope !== 'apiary' || i === data.hives.length - 1}
+                  selectedLabel={selected && selected.hiveId === h.id ? `${shortDate(selected.at)} · ${SEASON_KIND_LABELS[selected.kind]}` : undefined}
                 />
               </View>
             ))

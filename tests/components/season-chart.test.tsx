@@ -97,8 +97,9 @@ describe('SeasonChart', () => {
     // The target is hidden from screen readers (they get the table and the Previous/Next buttons).
     fireEvent(screen.getByTestId('season-chart-target-h1', { includeHiddenElements: true }), 'responderGrant', { nativeEvent: { locationX: 414 } });
     expect(onSelect).toHaveBeenCalledWith('i3');
-    rerender(<SeasonChart {...props} onSelect={onSelect} selectedId="i3" />);
+    rerender(<SeasonChart {...props} onSelect={onSelect} selectedId="i3" selectedLabel="10 Jun · Quick check" />);
     expect(screen.getAllByTestId('season-selection-rule')).toHaveLength(5);
+    expect(screen.getAllByTestId('season-selection-label')).toHaveLength(1);
   });
 
   it('orders the marks in time and finds the nearest', () => {

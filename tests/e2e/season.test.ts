@@ -8,6 +8,7 @@ import os from 'node:os';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { byTestId, newPage, shot, signIn, startE2e, PHONE, WIDE, SHOTS_DIR, type E2e } from './harness';
+import { asc } from 'drizzle-orm';
 import * as schema from '../../db/schema';
 
 jest.setTimeout(180_000);
@@ -32,11 +33,12 @@ let e: E2e;
 let year: number;
 beforeAll(async () => {
   e = await startE2e();
-  const now = e.server.clock.now;
-  year = now.getUTCMonth() < 2 ? now.getUTCFullYear() - 1 : now.getUTCFullYear();
+  // The season of the demo's hive-scale log for Ash (it follows the demo records' season).
+  const db = e.server.testDb.db;
+  const [first] = await db.select({ at: schema.sensorReadings.at }).from(schema.sensorReadings).orderBy(asc(schema.sensorReadings.at)).limit(1);
+  year = first.at.getUTCFullYear();
   // When the demo has no records for Ash this season yet, add a few (invented test data) so the
   // charts have something to draw beside the seeded hive-scale log.
-  const db = e.server.testDb.db;
   const existing = await db.select({ id: schema.inspections.id }).from(schema.inspections).limit(1);
   if (existing.length === 0) {
     const ash = e.ids.hives.Ash;
