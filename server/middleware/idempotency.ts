@@ -30,6 +30,7 @@ import { AppError } from '../errors';
 
 export const IDEMPOTENCY_HEADER = 'Idempotency-Key';
 export const IDEMPOTENCY_TTL_MS = 24 * 60 * 60 * 1000;
+const PURGE_EVERY_MS = 60_000;
 
 export interface IdempotencyOptions {
   /** An in-flight claim older than this is treated as abandoned; default 60 s. */
@@ -62,6 +63,7 @@ function readKey(raw: string | undefined): string | null {
 
 export function idempotency(ctx: Ctx, opts: IdempotencyOptions = {}): RequestHandler {
   const abandonAfterMs = opts.abandonAfterMs ?? 60_000;
+  let lastPurge = -Infinity;
   return async (req, res, next) => {
     const key = readKey(req.get(IDEMPOTENCY_HEADER));
     if (key === null || !req.user) return next();
@@ -70,7 +72,11 @@ export function idempotency(ctx: Ctx, opts: IdempotencyOptions = {}): RequestHan
     const fingerprint = fingerprintOf(req.method, path, req.body);
     const now = ctx.now();
 
-    await ctx.db.delete(idempotencyKeys).where(lt(idempotencyKeys.createdAt, new Date(now.getTime() - IDEMPOTENCY_TTL_MS)));
+    // Purge expired keys at most once a minute (of the app's clock), not on every write.
+    if (Math.abs(now.getTime() - lastPurge) >= PURGE_EVERY_MS) {
+      lastPurge = now.getTime();
+      await ctx.db.delete(idempotencyKeys).where(lt(idempotencyKeys.createdAt, new Date(now.getTime() - IDEMPOTENCY_TTL_MS)));
+    }
 
     // Insert first: of two racing copies exactly one gets the row; the other sees the conflict.
     const claimed = await ctx.db
