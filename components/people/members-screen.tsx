@@ -133,6 +133,13 @@ export function MembersScreen() {
         <Text variant="display">People{apiary.data ? ` at ${apiary.data.name}` : ''}</Text>
 
         {apiary.isError ? <LoadError error={apiary.error} /> : null}
+        {manage ? (
+          <Section title="Invite someone" testID="invite-form">
+            {sentTo ? (
+              <Notice tone="good" testID="invite-sent" title="Invitation sent">
+                {`An e-mail with a link is on its way to ${sentTo}. The link works once, for 7 days.`}
+              </Notice>
+            ) : null}
         {members.isPending && members.fetchStatus !== 'idle' ? (
           <Loading label="Loading who has access…" />
         ) : members.isError ? (
@@ -140,7 +147,14 @@ export function MembersScreen() {
         ) : members.data ? (
           <Section title="Who has access" testID="members-list">
             {members.data.members.map((m) => (
-              <MemberRow key={m.userId} apiaryId={apiaryId} m={m} manage={manage} now={now} />
+              <MemberRow
+                key={m.userId}
+                apiaryId={apiaryId}
+                m={m}
+                manage={manage}
+                now={now}
+                onlyOwner={m.role === 'owner' && members.data.members.filter((x) => x.role === 'owner').length === 1}
+              />
             ))}
           </Section>
         ) : apiary.data ? (
@@ -155,13 +169,6 @@ export function MembersScreen() {
           </Section>
         ) : null}
 
-        {manage ? (
-          <Section title="Invite someone" testID="invite-form">
-            {sentTo ? (
-              <Notice tone="good" testID="invite-sent" title="Invitation sent">
-                {`An e-mail with a link is on its way to ${sentTo}. The link works once, for 7 days.`}
-              </Notice>
-            ) : null}
             {invite.error && !serverErrors.email ? (
               <Notice tone="warning" testID="invite-error">
                 {invite.error.message}
@@ -211,7 +218,7 @@ export function MembersScreen() {
   );
 }
 
-function MemberRow({ apiaryId, m, manage, now }: { apiaryId: string; m: MemberDto; manage: boolean; now: Date }) {
+function MemberRow({ apiaryId, m, manage, now, onlyOwner }: { apiaryId: string; m: MemberDto; manage: boolean; now: Date; onlyOwner: boolean }) {
   const t = useTheme();
   const [editing, setEditing] = useState(false);
   const [confirmEnd, setConfirmEnd] = useState(false);
@@ -235,7 +242,12 @@ function MemberRow({ apiaryId, m, manage, now }: { apiaryId: string; m: MemberDt
           {(update.error ?? remove.error)!.message}
         </Notice>
       ) : null}
-      {manage && !editing && !confirmEnd ? (
+      {manage && onlyOwner ? (
+        <Text tone="muted" variant="small">
+          The only owner: make someone else an owner before changing this.
+        </Text>
+      ) : null}
+      {manage && !onlyOwner && !editing && !confirmEnd ? (
         <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: t.targetGap }}>
           <BigButton testID={`member-${m.userId}-edit`} variant="secondary" label="Change role or dates" onPress={() => setEditing(true)} />
           <BigButton testID={`member-${m.userId}-end`} variant="secondary" label="End access" onPress={() => setConfirmEnd(true)} />

@@ -44,11 +44,14 @@ it('runs a sitter’s fortnight: invitation by e-mail, sign-up, Handover, a feed
   // The phone layout mounts the screen anew (bottom bar instead of side rail): fill it at each size.
   for (const size of [PHONE, WIDE]) {
     await owner.page.setViewportSize(size);
+    await owner.page.goto(`/apiaries/${orchard}/members`);
+    await byTestId(owner.page, 'members-list').waitFor();
+    await shot(owner.page, 'members');
     await byTestId(owner.page, 'invite-email').fill(SITTER);
     await byTestId(owner.page, 'chips-invite-role-sitter').click();
     await expect(byTestId(owner.page, 'stepper-invite-start-value').textContent()).resolves.toBe('Today');
     await expect(byTestId(owner.page, 'stepper-invite-days-value').textContent()).resolves.toContain('14');
-    await shot(owner.page, 'members');
+    await shot(owner.page, 'members-invite');
   }
   const [invited] = await Promise.all([
     owner.page.waitForResponse((r) => r.url().includes('/invitations') && r.request().method() === 'POST'),
