@@ -267,6 +267,8 @@ async function benchSize(label: string, keepers: number) {
   );
 
   const out = {
+    // The floor every signed-in route stands on (session cookie, session row, Express middleware).
+    meApp: await measure(`http://127.0.0.1:${app.port}/api/me`, h),
     storyApp: await measure(storyUrl, h),
     storyRaw: await measure(`http://127.0.0.1:${base.port}/story`, {}),
     dueApp: await measure(dueUrl, h),
@@ -284,12 +286,13 @@ function report(label: string, r: Awaited<ReturnType<typeof benchSize>>) {
   console.log('endpoint                      req/s     p50 ms   p95 ms   p99 ms   errors');
   const row = (name: string, m: Measure) =>
     console.log(`${name.padEnd(28)} ${f1(m.rps).padStart(7)} ${f1(m.p50).padStart(9)} ${f1(m.p95).padStart(8)} ${f1(m.p99).padStart(8)} ${String(m.errors).padStart(8)}`);
+  row('GET /api/me (app floor)', r.meApp);
   row('story  (app)', r.storyApp);
   row('story  (raw SQL baseline)', r.storyRaw);
   row('due    (app)', r.dueApp);
   row('due    (raw SQL baseline)', r.dueRaw);
   row('due    (app, 1 connection)', r.dueApp1);
-  console.log(`story throughput: ${f1((100 * r.storyApp.rps) / r.storyRaw.rps)} % of the raw baseline (aim ≥ 50 %)`);
+  console.log(`story throughput: ${f1((100 * r.storyApp.rps) / r.storyRaw.rps)} % of the raw baseline (aim ≥ 50 %); /api/me alone: ${f1((100 * r.meApp.rps) / r.storyRaw.rps)} %`);
   console.log(`due throughput:   ${f1((100 * r.dueApp.rps) / r.dueRaw.rps)} % of the raw baseline`);
   console.log(`due p95 for ${HIVES_PER_KEEPER} hives: ${f1(r.dueApp.p95)} ms at ${CONNECTIONS} connections, ${f1(r.dueApp1.p95)} ms at 1 (aim ≤ 30 ms)`);
 }
