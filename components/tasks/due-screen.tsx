@@ -153,7 +153,7 @@ function DueTaskCard({ task, today }: { task: DueTaskDto; today: string }) {
           testID={`due-later-toggle-${id}`}
           variant="secondary"
           fullWidth={!gtCompact}
-          label={showLater ? 'Close' : 'Not now…'}
+          label={showLater ? 'Close snooze options' : 'Not now…'}
           accessibilityState={{ expanded: showLater }}
           onPress={() => setShowLater((v) => !v)}
         />
