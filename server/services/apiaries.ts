@@ -35,7 +35,11 @@ async function hiveCounts(ctx: Ctx, apiaryIds: string[]): Promise<Map<string, nu
   return new Map(rows.map((r) => [r.apiaryId, r.n]));
 }
 
-/** The apiaries a person may see now: every membership whose window is open. */
+/**
+ * The apiaries a person may see: every membership whose window is open, and a sitting still to
+ * come (listed with its start, so the sitter knows when; opening it answers 403 until then).
+ * An ended window drops out.
+ */
 export async function listApiaries(ctx: Ctx, user: SessionUser): Promise<ApiaryDto[]> {
   const rows = await ctx.db
     .select({ a: apiaries, m: { role: memberships.role, startsAt: memberships.startsAt, endsAt: memberships.endsAt } })
@@ -44,7 +48,7 @@ export async function listApiaries(ctx: Ctx, user: SessionUser): Promise<ApiaryD
     .where(eq(memberships.userId, user.id))
     .orderBy(apiaries.name);
   const now = ctx.now();
-  const open = rows.filter((r) => windowState(r.m, now) === 'active');
+  const open = rows.filter((r) => windowState(r.m, now) !== 'ended');
   const counts = await hiveCounts(ctx, open.map((r) => r.a.id));
   return open.map((r) => toDto(r.a, r.m, counts.get(r.a.id) ?? 0));
 }

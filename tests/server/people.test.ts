@@ -167,10 +167,16 @@ describe('members', () => {
     const refused = await s.as.sitter.get(`/api/apiaries/${s.ids.orchardRow}/hives`);
     expect(refused.status).toBe(403);
     expect(refused.body.error.message).toBe(`Your access to this apiary ended on ${day(-1)}.`);
+    const after = (await s.as.sitter.get('/api/apiaries')).body.apiaries as { name: string }[];
+    expect(after.map((a) => a.name)).not.toContain('Orchard Row');
     await s.as.keeper.patch(`/api/apiaries/${s.ids.orchardRow}/members/${s.ids.users.sitter}`).send({ startsAt: day(2), endsAt: day(9) }).expect(200);
     const early = await s.as.sitter.get(`/api/apiaries/${s.ids.orchardRow}/hives`);
     expect(early.status).toBe(403);
     expect(early.body.error.message).toBe(`Your access to this apiary begins on ${day(2)}.`);
+    // The sitting to come is listed with its start, so the sitter knows when; an ended one is not.
+    const upcoming = (await s.as.sitter.get('/api/apiaries')).body.apiaries;
+    const orchard = upcoming.find((a: { name: string }) => a.name === 'Orchard Row') as { myStartsAt: string } | undefined;
+    expect(orchard?.myStartsAt.slice(0, 10)).toBe(day(2));
     await s.as.keeper.patch(`/api/apiaries/${s.ids.orchardRow}/members/${s.ids.users.sitter}`).send({ startsAt: day(-3), endsAt: day(11) }).expect(200);
     expect((await s.as.sitter.get(`/api/apiaries/${s.ids.orchardRow}/hives`)).status).toBe(200);
   });
