@@ -9,6 +9,7 @@ import type { Db } from '../db/client';
 import type { Ctx } from './context';
 import { AppError, errorMiddleware } from './errors';
 import { createLogger, redactUrl } from './logger';
+import { jsonGuard } from './middleware/json-guard';
 import { sameOrigin } from './middleware/same-origin';
 import { requireUser, sessionMiddleware, sessionOptions } from './middleware/session';
 import { routeFactories } from './routes';
@@ -95,6 +96,8 @@ export function createApp(opts: AppOptions): CreatedApp {
   // itself after the sign-in check, so a stranger cannot make the server parse megabytes.
   const smallJson = express.json({ limit: '256kb' });
   app.use('/api', (req, res, next) => (req.path === '/import' ? next() : smallJson(req, res, next)));
+  // NUL characters and absurd nesting are refused before any route (PostgreSQL cannot keep a NUL).
+  app.use('/api', jsonGuard);
 
   const sOpts = sessionOptions(opts.sessionPassword, opts.secureCookies ?? false);
   app.use('/api', sessionMiddleware(ctx, sOpts));

@@ -10,6 +10,7 @@
  */
 import express, { type Response } from 'express';
 import { exportSeasonQuerySchema } from '../../shared/schemas/exports';
+import { jsonGuard } from '../middleware/json-guard';
 import { userOf } from '../middleware/session';
 import { query } from '../middleware/validate';
 import * as exportsService from '../services/exports';
@@ -57,7 +58,7 @@ export const exportRoutes: RouteFactory = (ctx) => [
     path: '/api/import',
     auth: true,
     // Read here, after the sign-in check (createApp leaves this path to its route).
-    before: [express.json({ limit: '50mb' })],
+    before: [express.json({ limit: '50mb' }), jsonGuard],
     handler: async (req, res) => {
       res.status(201).json({ result: await exportsService.importAccount(ctx, userOf(req), req.body) });
     },
