@@ -26,7 +26,8 @@ function hashFiles(files) {
 /** `npm ci` when node_modules is missing or the lockfile changed since the last install. */
 export function ensureDeps() {
   const marker = path.join(root, 'node_modules', '.frameside-lock-hash');
-  const want = hashFiles(['package.json', 'package-lock.json']);
+  // The lockfile alone: it changes with every dependency change, and not with a new npm script.
+  const want = hashFiles(['package-lock.json']);
   const have = fs.existsSync(marker) ? fs.readFileSync(marker, 'utf8') : '';
   if (have === want && fs.existsSync(path.join(root, 'node_modules', '.bin', 'tsx'))) return;
   step('Installing npm packages (npm ci) …');
