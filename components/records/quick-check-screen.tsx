@@ -247,6 +247,7 @@ export function QuickCheckScreen() {
       boxes={hive.data.boxes}
       // A failed list read only loses the pre-fill; the keeper can still record.
       previousReady={!previous.isPending}
+      previousFailed={previous.isError}
       previous={previous.data?.[0]}
     />
   );
@@ -259,6 +260,8 @@ interface QuickCheckFormProps {
   boxes: readonly Box[];
   previousReady: boolean;
   previous: InspectionDto | undefined;
+  /** The previous check could not be loaded (no signal): the form starts from 0 and says why. */
+  previousFailed: boolean;
   /** The saved check being edited, or null for a new one. */
   editing: InspectionDto | null;
   /** True after a save found that someone else had changed the check first. */
@@ -266,7 +269,7 @@ interface QuickCheckFormProps {
   onStale: () => void;
 }
 
-function QuickCheckForm({ hiveId, hiveName, capacity, boxes, previousReady, previous, editing, stale, onStale }: QuickCheckFormProps) {
+function QuickCheckForm({ hiveId, hiveName, capacity, boxes, previousReady, previous, previousFailed, editing, stale, onStale }: QuickCheckFormProps) {
   const t = useTheme();
   const now = useNow();
   const form = useRecordForm({
@@ -323,6 +326,10 @@ function QuickCheckForm({ hiveId, hiveName, capacity, boxes, previousReady, prev
   ) : v.basedOn ? (
     <Notice tone="info" title={`Same as last time — ${shortDateOfInstant(v.basedOn.occurredAt)}`} testID="quick-check-basis">
       Frames, queen, brood pattern and temperament start from that check: change what changed. Cells, signs, actions and weather start empty.
+    </Notice>
+  ) : previousFailed ? (
+    <Notice tone="info" title="The last check could not be loaded" testID="quick-check-basis">
+      No connection to fetch it: every count starts at 0. The check is kept on this device until it is saved.
     </Notice>
   ) : (
     <Notice tone="info" title="First check of this hive" testID="quick-check-basis">
