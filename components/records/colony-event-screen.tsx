@@ -1,7 +1,7 @@
 import { useLocalSearchParams } from 'expo-router';
 import { View } from 'react-native';
 import { COLONY_EVENT_KINDS, type ColonyEventKind } from '@/shared/domain/records';
-import { colonyEventCreateSchema, RECORD_LIMITS, type ColonyEventCreateInput } from '@/shared/schemas/records';
+import { colonyEventCreateSchema, RECORD_LIMITS, type ColonyEventCreateInput, type ColonyEventDto } from '@/shared/schemas/records';
 import { useHiveQuery, useHivesQuery } from '@/components/api/hives';
 import { useNow } from '@/components/layout/use-now';
 import { useTheme } from '@/components/theme/use-theme';
@@ -10,6 +10,9 @@ import { LoadError, Loading } from '@/components/ui/query-state';
 import { Screen } from '@/components/ui/screen';
 import { Text } from '@/components/ui/text';
 import { DraftRestored } from './draft-restored';
+import { EditingNotice } from './editing-notice';
+import { EditLoading } from './edit-loading';
+import { useEditTarget, type EditTarget } from './use-edit-target';
 import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
 import { COLONY_EVENT_LABELS, optionsOf } from './record-labels';
 import { useRecordForm, type TimedValues } from './use-record-form';
@@ -37,10 +40,17 @@ const OTHER_QUESTION: Partial<Record<ColonyEventKind, string>> = {
   combined: 'Combined with which hive?',
 };
 
+/** A saved colony event as the form holds it, to edit it. */
+export function colonyEventFromRecord(r: ColonyEventDto): ColonyEventValues {
+  return { visitTime: 'now', occurredAt: r.occurredAt, kind: r.kind, otherHiveId: r.otherHiveId ?? (WITH_OTHER.includes(r.kind) ? 'none' : null), note: r.note };
+}
+
 /** Colony event: /hives/[hiveId]/colony-event. */
 export function ColonyEventScreen() {
   const { hiveId } = useLocalSearchParams<{ hiveId: string }>();
   const hive = useHiveQuery(hiveId);
+  const target = useEditTarget('colony-event');
+  if (target.waiting) return <EditLoading title="Colony event" query={target.query} />;
   if (hive.isPending || hive.isError) {
     return (
       <Screen title="Colony event">
@@ -48,19 +58,24 @@ export function ColonyEventScreen() {
       </Screen>
     );
   }
-  return <ColonyEventForm hiveId={hive.data.id} hiveName={hive.data.name} apiaryId={hive.data.apiaryId} />;
+  return <ColonyEventForm key={target.formKey} target={target} hiveId={hive.data.id} hiveName={hive.data.name} apiaryId={hive.data.apiaryId} />;
 }
 
-function ColonyEventForm({ hiveId, hiveName, apiaryId }: { hiveId: string; hiveName: string; apiaryId: string }) {
+function ColonyEventForm({ hiveId, hiveName, apiaryId, target }: { hiveId: string; hiveName: string; apiaryId: string; target: EditTarget<'colony-event'> }) {
   const t = useTheme();
   const now = useNow();
   const hives = useHivesQuery(apiaryId);
   const form = useRecordForm({
     kind: 'colony-event',
     ownerId: hiveId,
-    initial: (): ColonyEventValues => ({ visitTime: 'now', occurredAt: null, kind: null, otherHiveId: null, note: '' }),
+    initial: (): ColonyEventValues =>
+      target.editing
+        ? colonyEventFromRecord(target.editing)
+        : ({ visitTime: 'now', occurredAt: null, kind: null, otherHiveId: null, note: '' }),
     build: colonyEventBody,
     schema: colonyEventCreateSchema,
+    edit: target.edit,
+    onStale: target.onStale,
     leaveTo: { pathname: '/hives/[hiveId]', params: { hiveId } },
   });
   const { draft, set } = form;
@@ -74,11 +89,16 @@ function ColonyEventForm({ hiveId, hiveName, apiaryId }: { hiveId: string; hiveN
 
   return (
     <RecordFormScreen
-      title="Colony event"
+      title={target.editing ? 'Edit colony event' : 'Colony event'}
       subject={hiveName}
       backHref={{ pathname: '/hives/[hiveId]', params: { hiveId } }}
       testID="colony-event-screen"
-      intro={<DraftRestored draft={draft} testID="colony-event" />}
+      intro={
+        <>
+          {target.editing ? <EditingNotice record={target.editing} stale={target.stale} what="colony event" testID="colony-event" /> : null}
+          <DraftRestored draft={draft} testID="colony-event" />
+        </>
+      }
       left={
         <FormGroup title="What happened">
           <ChoiceChips field="kind" label="The colony" hideLabel options={kindOptions} value={v.kind} onChange={(kind) => set({ kind })} />
@@ -100,7 +120,7 @@ function ColonyEventForm({ hiveId, hiveName, apiaryId }: { hiveId: string; hiveN
           </FormGroup>
         </>
       }
-      bottomBar={<SaveBar testID="colony-event-save" label="Save colony event" onSave={form.save} saving={form.saving} error={form.error} />}
+      bottomBar={<SaveBar testID="colony-event-save" label={target.editing ? 'Save changes' : 'Save colony event'} onSave={form.save} saving={form.saving} error={form.error} />}
     />
   );
 }

@@ -2,7 +2,7 @@ import { useLocalSearchParams } from 'expo-router';
 import { cautionsFor } from '@/shared/domain/cautions';
 import { FEEDER_TYPES, FEEDING_KINDS, SYRUP_BASES, SYRUP_RATIOS, type FeederType, type FeedingKind, type SyrupBasis, type SyrupRatio } from '@/shared/domain/records';
 import { gallonsToLitres, kgToLb, lbToKg, litresToGallons } from '@/shared/domain/units';
-import { feedingCreateSchema, RECORD_LIMITS, type FeedingCreateInput } from '@/shared/schemas/records';
+import { feedingCreateSchema, RECORD_LIMITS, type FeedingCreateInput, type FeedingDto } from '@/shared/schemas/records';
 import { useHiveQuery } from '@/components/api/hives';
 import { useNow } from '@/components/layout/use-now';
 import { ChoiceChips } from '@/components/ui/choice-chips';
@@ -15,6 +15,9 @@ import { CautionList } from './caution-list';
 import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
 import { FEEDER_TYPE_LABELS, FEEDING_KIND_LABELS, optionsOf, SYRUP_BASIS_LABELS, SYRUP_RATIO_LABELS } from './record-labels';
 import { DraftRestored } from './draft-restored';
+import { EditingNotice } from './editing-notice';
+import { EditLoading } from './edit-loading';
+import { useEditTarget, type EditTarget } from './use-edit-target';
 import { useRecordForm, type TimedValues } from './use-record-form';
 import { useUnits, type UnitSystem } from './use-units';
 
@@ -100,10 +103,27 @@ const unitOptions = [
   { value: 'us' as const, label: 'US gallons and lb' },
 ];
 
+/** A saved feeding as the form holds it, to edit it: the amount shown in metric units, as stored. */
+export function feedingFromRecord(r: FeedingDto): FeedingValues {
+  return {
+    visitTime: 'now',
+    occurredAt: r.occurredAt,
+    kind: r.kind,
+    ratio: r.ratio ?? '1:1',
+    basis: r.basis ?? 'weight',
+    amount: (measureOf(r.kind) === 'volume' ? r.amountL : r.amountKg) ?? DEFAULT_AMOUNT[measureOf(r.kind)].metric,
+    units: 'metric',
+    feederType: r.feederType,
+    note: r.note,
+  };
+}
+
 /** Feeding: /hives/[hiveId]/feeding. */
 export function FeedingScreen() {
   const { hiveId } = useLocalSearchParams<{ hiveId: string }>();
   const hive = useHiveQuery(hiveId);
+  const target = useEditTarget('feeding');
+  if (target.waiting) return <EditLoading title="Feeding" query={target.query} />;
   if (hive.isPending || hive.isError) {
     return (
       <Screen title="Feeding">
@@ -111,28 +131,33 @@ export function FeedingScreen() {
       </Screen>
     );
   }
-  return <FeedingForm hiveId={hive.data.id} hiveName={hive.data.name} />;
+  return <FeedingForm key={target.formKey} target={target} hiveId={hive.data.id} hiveName={hive.data.name} />;
 }
 
-function FeedingForm({ hiveId, hiveName }: { hiveId: string; hiveName: string }) {
+function FeedingForm({ hiveId, hiveName, target }: { hiveId: string; hiveName: string; target: EditTarget<'feeding'> }) {
   const now = useNow();
   const [preferredUnits, setPreferredUnits] = useUnits();
   const form = useRecordForm({
     kind: 'feeding',
     ownerId: hiveId,
-    initial: (): FeedingValues => ({
-      visitTime: 'now',
-      occurredAt: null,
-      kind: 'syrup',
-      ratio: '1:1',
-      basis: 'weight',
-      amount: DEFAULT_AMOUNT.volume[preferredUnits],
-      units: preferredUnits,
-      feederType: null,
-      note: '',
-    }),
+    initial: (): FeedingValues =>
+      target.editing
+        ? feedingFromRecord(target.editing)
+        : ({
+          visitTime: 'now',
+          occurredAt: null,
+          kind: 'syrup',
+          ratio: '1:1',
+          basis: 'weight',
+          amount: DEFAULT_AMOUNT.volume[preferredUnits],
+          units: preferredUnits,
+          feederType: null,
+          note: '',
+          }),
     build: feedingBody,
     schema: feedingCreateSchema,
+    edit: target.edit,
+    onStale: target.onStale,
     leaveTo: { pathname: '/hives/[hiveId]', params: { hiveId } },
   });
   const { draft, set } = form;
@@ -212,14 +237,19 @@ function FeedingForm({ hiveId, hiveName }: { hiveId: string; hiveName: string })
 
   return (
     <RecordFormScreen
-      title="Feeding"
+      title={target.editing ? 'Edit feeding' : 'Feeding'}
       subject={hiveName}
       backHref={{ pathname: '/hives/[hiveId]', params: { hiveId } }}
       testID="feeding-screen"
-      intro={<DraftRestored draft={draft} testID="feeding" />}
+      intro={
+        <>
+          {target.editing ? <EditingNotice record={target.editing} stale={target.stale} what="feeding" testID="feeding" /> : null}
+          <DraftRestored draft={draft} testID="feeding" />
+        </>
+      }
       left={left}
       right={right}
-      bottomBar={<SaveBar testID="feeding-save" label="Save feeding" onSave={form.save} saving={form.saving} error={form.error} />}
+      bottomBar={<SaveBar testID="feeding-save" label={target.editing ? 'Save changes' : 'Save feeding'} onSave={form.save} saving={form.saving} error={form.error} />}
     />
   );
 }

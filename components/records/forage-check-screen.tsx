@@ -1,7 +1,7 @@
 import { useLocalSearchParams } from 'expo-router';
 import { cautionsFor } from '@/shared/domain/cautions';
 import { FORAGE_JUDGEMENTS, SYRUP_DISH, syrupDishVerdict, type ForageJudgement, type SyrupDishObservation } from '@/shared/domain/forage';
-import { forageCheckCreateSchema, RECORD_LIMITS, type ForageCheckCreateInput } from '@/shared/schemas/records';
+import { forageCheckCreateSchema, RECORD_LIMITS, type ForageCheckCreateInput, type ForageCheckDto } from '@/shared/schemas/records';
 import { useApiaryQuery } from '@/components/api/apiaries';
 import { useNow } from '@/components/layout/use-now';
 import { ChoiceChips } from '@/components/ui/choice-chips';
@@ -11,6 +11,9 @@ import { Screen } from '@/components/ui/screen';
 import { Stepper } from '@/components/ui/stepper';
 import { CautionList } from './caution-list';
 import { DraftRestored } from './draft-restored';
+import { EditingNotice } from './editing-notice';
+import { EditLoading } from './edit-loading';
+import { useEditTarget, type EditTarget } from './use-edit-target';
 import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
 import { FORAGE_JUDGEMENT_LABELS, optionsOf } from './record-labels';
 import { useRecordForm, type TimedValues } from './use-record-form';
@@ -61,10 +64,27 @@ const VERDICT_WORDS: Record<ForageJudgement, string> = {
   flow: 'left alone: the bees have better forage.',
 };
 
+/** A saved Forage check as the form holds it, to edit it. */
+export function forageCheckFromRecord(r: ForageCheckDto): ForageCheckValues {
+  const dish = r.minutesToEmpty != null || r.watchedMinutes != null || r.untouched;
+  return {
+    visitTime: 'now',
+    occurredAt: r.occurredAt,
+    mode: dish ? 'dish' : 'judgement',
+    dishResult: r.minutesToEmpty != null ? 'emptied' : r.untouched ? 'untouched' : 'found',
+    minutesToEmpty: r.minutesToEmpty ?? 20,
+    watchedMinutes: r.watchedMinutes ?? SYRUP_DISH.minimumWatchMinutes,
+    judgement: dish ? null : r.judgement,
+    note: r.note,
+  };
+}
+
 /** Forage check: /apiaries/[apiaryId]/forage-check. */
 export function ForageCheckScreen() {
   const { apiaryId } = useLocalSearchParams<{ apiaryId: string }>();
   const apiary = useApiaryQuery(apiaryId);
+  const target = useEditTarget('forage-check');
+  if (target.waiting) return <EditLoading title="Forage check" query={target.query} />;
   if (apiary.isPending || apiary.isError) {
     return (
       <Screen title="Forage check">
@@ -72,26 +92,31 @@ export function ForageCheckScreen() {
       </Screen>
     );
   }
-  return <ForageCheckForm apiaryId={apiary.data.id} apiaryName={apiary.data.name} />;
+  return <ForageCheckForm key={target.formKey} target={target} apiaryId={apiary.data.id} apiaryName={apiary.data.name} />;
 }
 
-function ForageCheckForm({ apiaryId, apiaryName }: { apiaryId: string; apiaryName: string }) {
+function ForageCheckForm({ apiaryId, apiaryName, target }: { apiaryId: string; apiaryName: string; target: EditTarget<'forage-check'> }) {
   const now = useNow();
   const form = useRecordForm({
     kind: 'forage-check',
     ownerId: apiaryId,
-    initial: (): ForageCheckValues => ({
-      visitTime: 'now',
-      occurredAt: null,
-      mode: 'dish',
-      dishResult: 'emptied',
-      minutesToEmpty: 20,
-      watchedMinutes: SYRUP_DISH.minimumWatchMinutes,
-      judgement: null,
-      note: '',
-    }),
+    initial: (): ForageCheckValues =>
+      target.editing
+        ? forageCheckFromRecord(target.editing)
+        : ({
+          visitTime: 'now',
+          occurredAt: null,
+          mode: 'dish',
+          dishResult: 'emptied',
+          minutesToEmpty: 20,
+          watchedMinutes: SYRUP_DISH.minimumWatchMinutes,
+          judgement: null,
+          note: '',
+          }),
     build: forageCheckBody,
     schema: forageCheckCreateSchema,
+    edit: target.edit,
+    onStale: target.onStale,
     leaveTo: { pathname: '/apiaries/[apiaryId]', params: { apiaryId } },
   });
   const { draft, set } = form;
@@ -168,14 +193,19 @@ function ForageCheckForm({ apiaryId, apiaryName }: { apiaryId: string; apiaryNam
 
   return (
     <RecordFormScreen
-      title="Forage check"
+      title={target.editing ? 'Edit forage check' : 'Forage check'}
       subject={apiaryName}
       backHref={{ pathname: '/apiaries/[apiaryId]', params: { apiaryId } }}
       testID="forage-check-screen"
-      intro={<DraftRestored draft={draft} testID="forage-check" />}
+      intro={
+        <>
+          {target.editing ? <EditingNotice record={target.editing} stale={target.stale} what="forage check" testID="forage-check" /> : null}
+          <DraftRestored draft={draft} testID="forage-check" />
+        </>
+      }
       left={left}
       right={right}
-      bottomBar={<SaveBar testID="forage-check-save" label="Save forage check" onSave={form.save} saving={form.saving} error={form.error} />}
+      bottomBar={<SaveBar testID="forage-check-save" label={target.editing ? 'Save changes' : 'Save forage check'} onSave={form.save} saving={form.saving} error={form.error} />}
     />
   );
 }

@@ -1,7 +1,7 @@
 import { useLocalSearchParams } from 'expo-router';
 import { View } from 'react-native';
 import { kgToLb, lbToKg } from '@/shared/domain/units';
-import { harvestCreateSchema, RECORD_LIMITS, type HarvestCreateInput } from '@/shared/schemas/records';
+import { harvestCreateSchema, RECORD_LIMITS, type HarvestCreateInput, type HarvestDto } from '@/shared/schemas/records';
 import { useHiveQuery } from '@/components/api/hives';
 import { useNow } from '@/components/layout/use-now';
 import { useTheme } from '@/components/theme/use-theme';
@@ -12,6 +12,9 @@ import { Screen } from '@/components/ui/screen';
 import { Stepper } from '@/components/ui/stepper';
 import { Text } from '@/components/ui/text';
 import { DraftRestored } from './draft-restored';
+import { EditingNotice } from './editing-notice';
+import { EditLoading } from './edit-loading';
+import { useEditTarget, type EditTarget } from './use-edit-target';
 import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
 import { useRecordForm, type TimedValues } from './use-record-form';
 import { useUnits, type UnitSystem } from './use-units';
@@ -46,10 +49,26 @@ const unitOptions = [
   { value: 'us' as const, label: 'lb' },
 ];
 
+/** A saved harvest as the form holds it, to edit it: the weight in kg, as stored. */
+export function harvestFromRecord(r: HarvestDto): HarvestValues {
+  return {
+    visitTime: 'now',
+    occurredAt: r.occurredAt,
+    supers: r.supers,
+    frames: r.frames,
+    weight: r.weightKg,
+    units: 'metric',
+    moisturePercent: r.moisturePercent,
+    note: r.note,
+  };
+}
+
 /** Harvest: /hives/[hiveId]/harvest. */
 export function HarvestScreen() {
   const { hiveId } = useLocalSearchParams<{ hiveId: string }>();
   const hive = useHiveQuery(hiveId);
+  const target = useEditTarget('harvest');
+  if (target.waiting) return <EditLoading title="Harvest" query={target.query} />;
   if (hive.isPending || hive.isError) {
     return (
       <Screen title="Harvest">
@@ -57,19 +76,24 @@ export function HarvestScreen() {
       </Screen>
     );
   }
-  return <HarvestForm hiveId={hive.data.id} hiveName={hive.data.name} />;
+  return <HarvestForm key={target.formKey} target={target} hiveId={hive.data.id} hiveName={hive.data.name} />;
 }
 
-function HarvestForm({ hiveId, hiveName }: { hiveId: string; hiveName: string }) {
+function HarvestForm({ hiveId, hiveName, target }: { hiveId: string; hiveName: string; target: EditTarget<'harvest'> }) {
   const t = useTheme();
   const now = useNow();
   const [preferredUnits, setPreferredUnits] = useUnits();
   const form = useRecordForm({
     kind: 'harvest',
     ownerId: hiveId,
-    initial: (): HarvestValues => ({ visitTime: 'now', occurredAt: null, supers: 1, frames: 0, weight: null, units: preferredUnits, moisturePercent: null, note: '' }),
+    initial: (): HarvestValues =>
+      target.editing
+        ? harvestFromRecord(target.editing)
+        : ({ visitTime: 'now', occurredAt: null, supers: 1, frames: 0, weight: null, units: preferredUnits, moisturePercent: null, note: '' }),
     build: harvestBody,
     schema: harvestCreateSchema,
+    edit: target.edit,
+    onStale: target.onStale,
     leaveTo: { pathname: '/hives/[hiveId]', params: { hiveId } },
   });
   const { draft, set } = form;
@@ -157,14 +181,19 @@ function HarvestForm({ hiveId, hiveName }: { hiveId: string; hiveName: string })
 
   return (
     <RecordFormScreen
-      title="Harvest"
+      title={target.editing ? 'Edit harvest' : 'Harvest'}
       subject={hiveName}
       backHref={{ pathname: '/hives/[hiveId]', params: { hiveId } }}
       testID="harvest-screen"
-      intro={<DraftRestored draft={draft} testID="harvest" />}
+      intro={
+        <>
+          {target.editing ? <EditingNotice record={target.editing} stale={target.stale} what="harvest" testID="harvest" /> : null}
+          <DraftRestored draft={draft} testID="harvest" />
+        </>
+      }
       left={left}
       right={right}
-      bottomBar={<SaveBar testID="harvest-save" label="Save harvest" onSave={form.save} saving={form.saving} error={form.error} />}
+      bottomBar={<SaveBar testID="harvest-save" label={target.editing ? 'Save changes' : 'Save harvest'} onSave={form.save} saving={form.saving} error={form.error} />}
     />
   );
 }

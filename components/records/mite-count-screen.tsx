@@ -1,6 +1,6 @@
 import { useLocalSearchParams } from 'expo-router';
 import { MITE_METHODS, miteLoad, type MiteLoad, type MiteMethod } from '@/shared/domain/mites';
-import { miteCountCreateSchema, RECORD_LIMITS, type MiteCountCreateInput } from '@/shared/schemas/records';
+import { miteCountCreateSchema, RECORD_LIMITS, type MiteCountCreateInput, type MiteCountDto } from '@/shared/schemas/records';
 import { useHiveQuery } from '@/components/api/hives';
 import { useNow } from '@/components/layout/use-now';
 import { ChoiceChips } from '@/components/ui/choice-chips';
@@ -10,6 +10,9 @@ import { Screen } from '@/components/ui/screen';
 import { Stepper } from '@/components/ui/stepper';
 import { Text } from '@/components/ui/text';
 import { DraftRestored } from './draft-restored';
+import { EditingNotice } from './editing-notice';
+import { EditLoading } from './edit-loading';
+import { useEditTarget, type EditTarget } from './use-edit-target';
 import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
 import { MITE_METHOD_LABELS, optionsOf } from './record-labels';
 import { useRecordForm, type TimedValues } from './use-record-form';
@@ -52,10 +55,25 @@ const LEVEL_WORDS = { low: 'Low', watch: 'Watch', act: 'Act' } as const;
 const methodOptions = optionsOf(MITE_METHODS, MITE_METHOD_LABELS);
 const fmt = (x: number) => (Math.round(x * 10) / 10).toLocaleString(undefined, { maximumFractionDigits: 1 });
 
+/** A saved mite count as the form holds it, to edit it. */
+export function miteCountFromRecord(r: MiteCountDto): MiteCountValues {
+  return {
+    visitTime: 'now',
+    occurredAt: r.occurredAt,
+    method: r.method,
+    beesSampled: r.beesSampled ?? RECORD_LIMITS.defaultBeesSampled,
+    mites: r.mites,
+    days: r.days ?? 3,
+    note: r.note,
+  };
+}
+
 /** Mite count: /hives/[hiveId]/mite-count. */
 export function MiteCountScreen() {
   const { hiveId } = useLocalSearchParams<{ hiveId: string }>();
   const hive = useHiveQuery(hiveId);
+  const target = useEditTarget('mite-count');
+  if (target.waiting) return <EditLoading title="Mite count" query={target.query} />;
   if (hive.isPending || hive.isError) {
     return (
       <Screen title="Mite count">
@@ -63,25 +81,30 @@ export function MiteCountScreen() {
       </Screen>
     );
   }
-  return <MiteCountForm hiveId={hive.data.id} hiveName={hive.data.name} />;
+  return <MiteCountForm key={target.formKey} target={target} hiveId={hive.data.id} hiveName={hive.data.name} />;
 }
 
-function MiteCountForm({ hiveId, hiveName }: { hiveId: string; hiveName: string }) {
+function MiteCountForm({ hiveId, hiveName, target }: { hiveId: string; hiveName: string; target: EditTarget<'mite-count'> }) {
   const now = useNow();
   const form = useRecordForm({
     kind: 'mite-count',
     ownerId: hiveId,
-    initial: (): MiteCountValues => ({
-      visitTime: 'now',
-      occurredAt: null,
-      method: 'alcohol-wash',
-      beesSampled: RECORD_LIMITS.defaultBeesSampled,
-      mites: 0,
-      days: 3,
-      note: '',
-    }),
+    initial: (): MiteCountValues =>
+      target.editing
+        ? miteCountFromRecord(target.editing)
+        : ({
+          visitTime: 'now',
+          occurredAt: null,
+          method: 'alcohol-wash',
+          beesSampled: RECORD_LIMITS.defaultBeesSampled,
+          mites: 0,
+          days: 3,
+          note: '',
+          }),
     build: miteCountBody,
     schema: miteCountCreateSchema,
+    edit: target.edit,
+    onStale: target.onStale,
     leaveTo: { pathname: '/hives/[hiveId]', params: { hiveId } },
   });
   const { draft, set } = form;
@@ -139,19 +162,20 @@ function MiteCountForm({ hiveId, hiveName }: { hiveId: string; hiveName: string 
 
   return (
     <RecordFormScreen
-      title="Mite count"
+      title={target.editing ? 'Edit mite count' : 'Mite count'}
       subject={hiveName}
       backHref={{ pathname: '/hives/[hiveId]', params: { hiveId } }}
       testID="mite-count-screen"
       intro={
         <>
+          {target.editing ? <EditingNotice record={target.editing} stale={target.stale} what="mite count" testID="mite-count" /> : null}
           <DraftRestored draft={draft} testID="mite-count" />
           {board ? <Text tone="muted">Natural mite fall on a board tracks the colony’s load loosely: confirm a high count with a wash.</Text> : null}
         </>
       }
       left={left}
       right={right}
-      bottomBar={<SaveBar testID="mite-count-save" label="Save mite count" onSave={form.save} saving={form.saving} error={form.error} />}
+      bottomBar={<SaveBar testID="mite-count-save" label={target.editing ? 'Save changes' : 'Save mite count'} onSave={form.save} saving={form.saving} error={form.error} />}
     />
   );
 }

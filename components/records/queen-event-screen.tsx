@@ -1,12 +1,15 @@
 import { useLocalSearchParams } from 'expo-router';
 import { QUEEN_EVENT_KINDS, type QueenEventKind } from '@/shared/domain/records';
-import { queenEventCreateSchema, RECORD_LIMITS, type QueenEventCreateInput } from '@/shared/schemas/records';
+import { queenEventCreateSchema, RECORD_LIMITS, type QueenEventCreateInput, type QueenEventDto } from '@/shared/schemas/records';
 import { useHiveQuery } from '@/components/api/hives';
 import { useNow } from '@/components/layout/use-now';
 import { ChoiceChips } from '@/components/ui/choice-chips';
 import { LoadError, Loading } from '@/components/ui/query-state';
 import { Screen } from '@/components/ui/screen';
 import { DraftRestored } from './draft-restored';
+import { EditingNotice } from './editing-notice';
+import { EditLoading } from './edit-loading';
+import { useEditTarget, type EditTarget } from './use-edit-target';
 import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
 import { optionsOf, QUEEN_EVENT_LABELS } from './record-labels';
 import { useRecordForm, type TimedValues } from './use-record-form';
@@ -23,10 +26,17 @@ export function queenEventBody(v: QueenEventValues, occurredAt: string): QueenEv
 
 const kindOptions = optionsOf(QUEEN_EVENT_KINDS, QUEEN_EVENT_LABELS);
 
+/** A saved queen event as the form holds it, to edit it. */
+export function queenEventFromRecord(r: QueenEventDto): QueenEventValues {
+  return { visitTime: 'now', occurredAt: r.occurredAt, kind: r.kind, note: r.note };
+}
+
 /** Queen event: /hives/[hiveId]/queen-event. */
 export function QueenEventScreen() {
   const { hiveId } = useLocalSearchParams<{ hiveId: string }>();
   const hive = useHiveQuery(hiveId);
+  const target = useEditTarget('queen-event');
+  if (target.waiting) return <EditLoading title="Queen event" query={target.query} />;
   if (hive.isPending || hive.isError) {
     return (
       <Screen title="Queen event">
@@ -34,17 +44,22 @@ export function QueenEventScreen() {
       </Screen>
     );
   }
-  return <QueenEventForm hiveId={hive.data.id} hiveName={hive.data.name} />;
+  return <QueenEventForm key={target.formKey} target={target} hiveId={hive.data.id} hiveName={hive.data.name} />;
 }
 
-function QueenEventForm({ hiveId, hiveName }: { hiveId: string; hiveName: string }) {
+function QueenEventForm({ hiveId, hiveName, target }: { hiveId: string; hiveName: string; target: EditTarget<'queen-event'> }) {
   const now = useNow();
   const form = useRecordForm({
     kind: 'queen-event',
     ownerId: hiveId,
-    initial: (): QueenEventValues => ({ visitTime: 'now', occurredAt: null, kind: null, note: '' }),
+    initial: (): QueenEventValues =>
+      target.editing
+        ? queenEventFromRecord(target.editing)
+        : ({ visitTime: 'now', occurredAt: null, kind: null, note: '' }),
     build: queenEventBody,
     schema: queenEventCreateSchema,
+    edit: target.edit,
+    onStale: target.onStale,
     leaveTo: { pathname: '/hives/[hiveId]', params: { hiveId } },
   });
   const { draft, set } = form;
@@ -52,11 +67,16 @@ function QueenEventForm({ hiveId, hiveName }: { hiveId: string; hiveName: string
   if (!v) return null;
   return (
     <RecordFormScreen
-      title="Queen event"
+      title={target.editing ? 'Edit queen event' : 'Queen event'}
       subject={hiveName}
       backHref={{ pathname: '/hives/[hiveId]', params: { hiveId } }}
       testID="queen-event-screen"
-      intro={<DraftRestored draft={draft} testID="queen-event" />}
+      intro={
+        <>
+          {target.editing ? <EditingNotice record={target.editing} stale={target.stale} what="queen event" testID="queen-event" /> : null}
+          <DraftRestored draft={draft} testID="queen-event" />
+        </>
+      }
       left={
         <FormGroup title="What happened">
           <ChoiceChips field="kind" label="The queen was" hideLabel options={kindOptions} value={v.kind} onChange={(kind) => set({ kind })} />
@@ -72,7 +92,7 @@ function QueenEventForm({ hiveId, hiveName }: { hiveId: string; hiveName: string
           </FormGroup>
         </>
       }
-      bottomBar={<SaveBar testID="queen-event-save" label="Save queen event" onSave={form.save} saving={form.saving} error={form.error} />}
+      bottomBar={<SaveBar testID="queen-event-save" label={target.editing ? 'Save changes' : 'Save queen event'} onSave={form.save} saving={form.saving} error={form.error} />}
     />
   );
 }

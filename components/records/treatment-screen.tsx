@@ -3,7 +3,7 @@ import { View } from 'react-native';
 import { cautionsFor } from '@/shared/domain/cautions';
 import type { IsoDate } from '@/shared/domain/dates';
 import { TREATMENT_ACTIVE_INGREDIENTS, TREATMENT_METHODS, type TreatmentActiveIngredient, type TreatmentMethod } from '@/shared/domain/records';
-import { RECORD_LIMITS, treatmentCreateSchema, type TreatmentCreateInput } from '@/shared/schemas/records';
+import { RECORD_LIMITS, treatmentCreateSchema, type TreatmentCreateInput, type TreatmentDto } from '@/shared/schemas/records';
 import { useHiveQuery } from '@/components/api/hives';
 import { useNow } from '@/components/layout/use-now';
 import { useTheme } from '@/components/theme/use-theme';
@@ -14,6 +14,9 @@ import { Screen } from '@/components/ui/screen';
 import { TextField } from '@/components/ui/text-field';
 import { CautionList } from './caution-list';
 import { DraftRestored } from './draft-restored';
+import { EditingNotice } from './editing-notice';
+import { EditLoading } from './edit-loading';
+import { useEditTarget, type EditTarget } from './use-edit-target';
 import { DateField, FormGroup, NoteField, RecordFormScreen, SaveBar } from './record-form';
 import { ACTIVE_INGREDIENT_LABELS, optionsOf, TREATMENT_METHOD_LABELS } from './record-labels';
 import { useRecordForm, type TimedValues } from './use-record-form';
@@ -70,10 +73,32 @@ const supersOptions = [
   { value: 'on' as const, label: 'Supers on' },
 ];
 
+/** A saved treatment as the form holds it, to edit it. */
+export function treatmentFromRecord(r: TreatmentDto): TreatmentValues {
+  return {
+    visitTime: 'now',
+    occurredAt: r.occurredAt,
+    activeIngredient: r.activeIngredient,
+    method: r.method,
+    productName: r.productName,
+    dose: r.dose,
+    batch: r.batch,
+    startDate: r.startDate,
+    plannedEndDate: r.plannedEndDate,
+    actualEndDate: r.actualEndDate,
+    supersOff: r.supersOff,
+    withdrawalUntil: r.withdrawalUntil,
+    appliedBy: r.appliedBy,
+    note: r.note,
+  };
+}
+
 /** Treatment: /hives/[hiveId]/treatment. */
 export function TreatmentScreen() {
   const { hiveId } = useLocalSearchParams<{ hiveId: string }>();
   const hive = useHiveQuery(hiveId);
+  const target = useEditTarget('treatment');
+  if (target.waiting) return <EditLoading title="Treatment" query={target.query} />;
   if (hive.isPending || hive.isError) {
     return (
       <Screen title="Treatment">
@@ -81,33 +106,38 @@ export function TreatmentScreen() {
       </Screen>
     );
   }
-  return <TreatmentForm hiveId={hive.data.id} hiveName={hive.data.name} />;
+  return <TreatmentForm key={target.formKey} target={target} hiveId={hive.data.id} hiveName={hive.data.name} />;
 }
 
-function TreatmentForm({ hiveId, hiveName }: { hiveId: string; hiveName: string }) {
+function TreatmentForm({ hiveId, hiveName, target }: { hiveId: string; hiveName: string; target: EditTarget<'treatment'> }) {
   const t = useTheme();
   const now = useNow();
   const form = useRecordForm({
     kind: 'treatment',
     ownerId: hiveId,
-    initial: (): TreatmentValues => ({
-      visitTime: 'now',
-      occurredAt: null,
-      activeIngredient: null,
-      method: null,
-      productName: '',
-      dose: '',
-      batch: '',
-      startDate: localIsoDate(new Date()),
-      plannedEndDate: null,
-      actualEndDate: null,
-      supersOff: true,
-      withdrawalUntil: null,
-      appliedBy: '',
-      note: '',
-    }),
+    initial: (): TreatmentValues =>
+      target.editing
+        ? treatmentFromRecord(target.editing)
+        : ({
+          visitTime: 'now',
+          occurredAt: null,
+          activeIngredient: null,
+          method: null,
+          productName: '',
+          dose: '',
+          batch: '',
+          startDate: localIsoDate(new Date()),
+          plannedEndDate: null,
+          actualEndDate: null,
+          supersOff: true,
+          withdrawalUntil: null,
+          appliedBy: '',
+          note: '',
+          }),
     build: treatmentBody,
     schema: treatmentCreateSchema,
+    edit: target.edit,
+    onStale: target.onStale,
     leaveTo: { pathname: '/hives/[hiveId]', params: { hiveId } },
   });
   const { draft, set } = form;
@@ -187,12 +217,13 @@ function TreatmentForm({ hiveId, hiveName }: { hiveId: string; hiveName: string 
 
   return (
     <RecordFormScreen
-      title="Treatment"
+      title={target.editing ? 'Edit treatment' : 'Treatment'}
       subject={hiveName}
       backHref={{ pathname: '/hives/[hiveId]', params: { hiveId } }}
       testID="treatment-screen"
       intro={
         <View style={{ gap: t.space.sm }}>
+          {target.editing ? <EditingNotice record={target.editing} stale={target.stale} what="treatment" testID="treatment" /> : null}
           <DraftRestored draft={draft} testID="treatment" />
           <Notice tone="info" title="The label governs" testID="treatment-label-notice">
             Frameside records what you gave; the product label (and your local rules) set the dose, timing, method and whether supers may stay on.
@@ -201,7 +232,7 @@ function TreatmentForm({ hiveId, hiveName }: { hiveId: string; hiveName: string 
       }
       left={left}
       right={right}
-      bottomBar={<SaveBar testID="treatment-save" label="Save treatment" onSave={form.save} saving={form.saving} error={form.error} />}
+      bottomBar={<SaveBar testID="treatment-save" label={target.editing ? 'Save changes' : 'Save treatment'} onSave={form.save} saving={form.saving} error={form.error} />}
     />
   );
 }

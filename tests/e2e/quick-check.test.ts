@@ -575,6 +575,23 @@ describe('Quick check and record forms, end to end in Chromium', () => {
     expect(stored).toMatchObject({ framesBrood: 6, framesBees: 9, version: 4 });
     // Edits never add a record.
     expect((await inspections(page, hiveId)).length).toBe(countAfterEdit);
+
+    // The other forms edit the same way: a treatment's batch number corrected from the pack.
+    const t = await api<{ treatment: { id: string; version: number } }>(page, `/api/hives/${hiveId}/treatments`, {
+      method: 'POST',
+      headers: { 'Idempotency-Key': `treat-${Date.now()}` },
+      body: { activeIngredient: 'thymol', method: 'gel', dose: 'One tray, as on the label', batch: 'LOT-0O1', startDate: new Date().toISOString().slice(0, 10) },
+    });
+    expect(t.status).toBe(201);
+    await page.goto(`/hives/${hiveId}/treatment?recordId=${t.body.treatment.id}`);
+    await byTestId(page, 'treatment-editing').waitFor();
+    await expect(byTestId(page, 'chips-activeIngredient-thymol').getAttribute('aria-checked')).resolves.toBe('true');
+    await byTestId(page, 'caution-treatment-temperature').waitFor();
+    await byTestId(page, 'treatment-batch').fill('LOT-001');
+    await byTestId(page, 'treatment-save').click();
+    await byTestId(page, 'hive-screen').waitFor();
+    const treated = (await api<{ treatment: { batch: string; version: number; dose: string } }>(page, `/api/treatments/${t.body.treatment.id}`)).body.treatment;
+    expect(treated).toMatchObject({ batch: 'LOT-001', version: 2, dose: 'One tray, as on the label' });
     await context.close();
   });
 });
