@@ -23,27 +23,40 @@ if (wantE2e) {
 }
 step(`Set-up done in ${((Date.now() - t0) / 1000).toFixed(0)} s; running the tests`);
 
-const out = path.join(root, '.tmp', 'jest-results.json');
-fs.mkdirSync(path.dirname(out), { recursive: true });
-fs.rmSync(out, { force: true });
-const r = spawnSync(bin('jest'), ['--maxWorkers=2', '--json', `--outputFile=${out}`, ...args], {
-  cwd: root,
-  stdio: 'inherit',
-  env: { ...process.env, FRAMESIDE_TEST_DATABASE_URL: pg.url, TZ: 'UTC' },
-});
+// Two passes: the unit, server and component suites two at a time, then the browser suites one
+// at a time (two Chromiums beside the server suites on two cores make sign-in waits flaky).
+// With arguments of your own, one pass does exactly what you asked.
+const passes = args.length
+  ? [{ name: 'selected', jestArgs: ['--maxWorkers=2', ...args] }]
+  : [
+      { name: 'unit-server-components', jestArgs: ['--maxWorkers=2', '--selectProjects', 'shared', 'server', 'components'] },
+      { name: 'e2e', jestArgs: ['--runInBand', '--selectProjects', 'e2e'] },
+    ];
 
 let passed = 0;
 let failed = 0;
 let skipped = 0;
-if (fs.existsSync(out)) {
-  const res = JSON.parse(fs.readFileSync(out, 'utf8'));
-  passed = res.numPassedTests;
-  // A suite that failed to load has no failed tests of its own; count it so it cannot hide.
-  failed = res.numFailedTests + res.numRuntimeErrorTestSuites;
-  skipped = res.numPendingTests + res.numTodoTests;
-} else {
-  failed = 1;
+let allOk = true;
+fs.mkdirSync(path.join(root, '.tmp'), { recursive: true });
+for (const pass of passes) {
+  const out = path.join(root, '.tmp', `jest-results-${pass.name}.json`);
+  fs.rmSync(out, { force: true });
+  const r = spawnSync(bin('jest'), [...pass.jestArgs, '--json', `--outputFile=${out}`], {
+    cwd: root,
+    stdio: 'inherit',
+    env: { ...process.env, FRAMESIDE_TEST_DATABASE_URL: pg.url, TZ: 'UTC' },
+  });
+  if (r.status !== 0) allOk = false;
+  if (fs.existsSync(out)) {
+    const res = JSON.parse(fs.readFileSync(out, 'utf8'));
+    passed += res.numPassedTests;
+    // A suite that failed to load has no failed tests of its own; count it so it cannot hide.
+    failed += res.numFailedTests + res.numRuntimeErrorTestSuites;
+    skipped += res.numPendingTests + res.numTodoTests;
+  } else {
+    failed += 1;
+  }
 }
 console.log(`\nTests took ${((Date.now() - t0) / 1000).toFixed(0)} s in all.`);
 console.log(`${passed} passed, ${failed} failed, ${skipped} skipped`);
-process.exit(r.status === 0 && failed === 0 && passed > 0 ? 0 : 1);
+process.exit(allOk && failed === 0 && passed > 0 ? 0 : 1);
