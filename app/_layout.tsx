@@ -1,9 +1,9 @@
-import { QueryClientProvider } from '@tanstack/react-query';
 import { useFonts } from 'expo-font';
 import { StatusBar } from 'expo-status-bar';
 import { useEffect, useState } from 'react';
 import { createQueryClient } from '@/components/api/query-client';
 import { RouteStack } from '@/components/nav/route-stack';
+import { OfflineProvider } from '@/components/offline/offline-provider';
 import { installFocusRing } from '@/components/theme/focus-ring';
 import { fontFamily, tokens } from '@/components/theme/tokens';
 import { ThemeContext } from '@/components/theme/use-theme';
@@ -25,10 +25,10 @@ export default function RootLayout() {
 
   return (
     <ThemeContext.Provider value={tokens}>
-      <QueryClientProvider client={queryClient}>
+      <OfflineProvider client={queryClient}>
         <StatusBar style="dark" />
         <RouteStack />
-      </QueryClientProvider>
+      </OfflineProvider>
     </ThemeContext.Provider>
   );
 }

@@ -9,12 +9,15 @@ export const apiariesRoot = ['apiaries'] as const;
 export const apiariesKey = () => [...apiariesRoot, 'list'] as const;
 export const apiaryKey = (apiaryId: string) => [...apiariesRoot, 'detail', apiaryId] as const;
 
+/** The apiaries the person may open: the hook's query, also fetched ahead for offline use (components/offline). */
+export const apiariesQuery = () => ({
+  queryKey: apiariesKey(),
+  queryFn: ({ signal }: { signal?: AbortSignal }) => apiFetch<{ apiaries: ApiaryDto[] }>('/api/apiaries', { signal }).then((r) => r.apiaries),
+  ...cacheLife.list,
+});
+
 export function useApiariesQuery() {
-  return useQuery({
-    queryKey: apiariesKey(),
-    queryFn: ({ signal }) => apiFetch<{ apiaries: ApiaryDto[] }>('/api/apiaries', { signal }).then((r) => r.apiaries),
-    ...cacheLife.list,
-  });
+  return useQuery(apiariesQuery());
 }
 
 export function useApiaryQuery(apiaryId: string | undefined) {

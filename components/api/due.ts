@@ -7,16 +7,21 @@ import { apiFetch } from './client';
 export const dueRoot = ['due'] as const;
 export const dueKey = (filter: { apiaryId?: string; hiveId?: string } = {}) => [...dueRoot, 'list', filter.apiaryId ?? '', filter.hiveId ?? ''] as const;
 
-export function useDueQuery(filter: { apiaryId?: string; hiveId?: string } = {}) {
+/** The Due list (or part of it): the hook's query, also fetched ahead for offline use (components/offline). */
+export function dueQuery(filter: { apiaryId?: string; hiveId?: string } = {}) {
   const params = new URLSearchParams();
   if (filter.apiaryId) params.set('apiaryId', filter.apiaryId);
   if (filter.hiveId) params.set('hiveId', filter.hiveId);
   const qs = params.toString();
-  return useQuery({
+  return {
     queryKey: dueKey(filter),
-    queryFn: ({ signal }) => apiFetch<{ tasks: DueTaskDto[] }>(`/api/due${qs ? `?${qs}` : ''}`, { signal }).then((r) => r.tasks),
+    queryFn: ({ signal }: { signal?: AbortSignal }) => apiFetch<{ tasks: DueTaskDto[] }>(`/api/due${qs ? `?${qs}` : ''}`, { signal }).then((r) => r.tasks),
     ...cacheLife.list,
-  });
+  };
+}
+
+export function useDueQuery(filter: { apiaryId?: string; hiveId?: string } = {}) {
+  return useQuery(dueQuery(filter));
 }
 
 export type TaskAction = { kind: 'done' } | { kind: 'dismiss' } | { kind: 'snooze'; until: string };

@@ -9,14 +9,16 @@ export const hivesRoot = ['hives'] as const;
 export const hivesKey = (apiaryId: string) => [...hivesRoot, 'list', apiaryId] as const;
 export const hiveKey = (hiveId: string) => [...hivesRoot, 'detail', hiveId] as const;
 
+/** An apiary's hives: the hook's query, also fetched ahead for offline use (components/offline). */
+export const hivesQuery = (apiaryId: string) => ({
+  queryKey: hivesKey(apiaryId),
+  queryFn: ({ signal }: { signal?: AbortSignal }) =>
+    apiFetch<{ hives: HiveDto[] }>(`/api/apiaries/${encodeURIComponent(apiaryId)}/hives`, { signal }).then((r) => r.hives),
+  ...cacheLife.list,
+});
+
 export function useHivesQuery(apiaryId: string | undefined) {
-  return useQuery({
-    queryKey: hivesKey(apiaryId ?? ''),
-    queryFn: ({ signal }) =>
-      apiFetch<{ hives: HiveDto[] }>(`/api/apiaries/${encodeURIComponent(apiaryId ?? '')}/hives`, { signal }).then((r) => r.hives),
-    enabled: Boolean(apiaryId),
-    ...cacheLife.list,
-  });
+  return useQuery({ ...hivesQuery(apiaryId ?? ''), enabled: Boolean(apiaryId) });
 }
 
 export function useHiveQuery(hiveId: string | undefined) {

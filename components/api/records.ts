@@ -91,14 +91,15 @@ function invalidateAfterWrite(qc: QueryClient, record: Pick<RecordDto, 'recordKi
   void qc.invalidateQueries({ queryKey: dueRoot });
 }
 
-/** A hive's records of one kind, newest first. */
+/** A hive's records of one kind, newest first: the hook's query, also fetched ahead for offline use (the Quick check starts from the last one). */
+export const hiveRecordsQuery = <K extends HiveRecordKind>(hiveId: string, kind: K) => ({
+  queryKey: hiveRecordsKey(hiveId, kind),
+  queryFn: ({ signal }: { signal?: AbortSignal }) => apiFetch<RecordListDto<K>>(listPath(kind, hiveId), { signal }).then((r) => r.records),
+  ...cacheLife.list,
+});
+
 export function useHiveRecordsQuery<K extends HiveRecordKind>(hiveId: string | undefined, kind: K) {
-  return useQuery({
-    queryKey: hiveRecordsKey(hiveId ?? '', kind),
-    queryFn: ({ signal }) => apiFetch<RecordListDto<K>>(listPath(kind, hiveId ?? ''), { signal }).then((r) => r.records),
-    enabled: Boolean(hiveId),
-    ...cacheLife.list,
-  });
+  return useQuery({ ...hiveRecordsQuery(hiveId ?? '', kind), enabled: Boolean(hiveId) });
 }
 
 /** An apiary's Forage checks, newest first. */
@@ -120,25 +121,62 @@ export function useRecordQuery<K extends RecordFormKind>(kind: K, recordId: stri
   });
 }
 
-export interface RecordCreateVariables<K extends RecordFormKind> {
+export interface RecordCreateVariables<K extends RecordFormKind = RecordFormKind> {
+  kind: K;
+  /** The hive (or, for a Forage check, the apiary). */
+  ownerId: string;
   input: CreateInputByKind[K];
   /** The draft's key: the same on every retry, so a lost answer never stores the record twice. */
   idempotencyKey: string;
+  /** The form's draft as it was sent, so a refused record can be reopened and fixed. */
+  draft?: unknown;
+  /**
+   * True when it was saved with no connection and left to the offline queue (the form closed);
+   * false while its form waits for the answer (the form shows a refusal, and keeps the draft).
+   */
+  queued?: boolean;
 }
 
-/** Create a record of `kind` for a hive (or, for a Forage check, an apiary). */
-export function useRecordCreateMutation<K extends RecordFormKind>(kind: K, ownerId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: ({ input, idempotencyKey }: RecordCreateVariables<K>) =>
-      apiFetch<unknown>(listPath(kind, ownerId), { method: 'POST', body: input, headers: { 'Idempotency-Key': idempotencyKey } }).then((b) =>
-        unwrap(kind, b),
-      ),
-    onSuccess: (record) => {
-      qc.setQueryData(recordKey(kind, record.id), record);
+/**
+ * Mutation keys of record creates. The function that sends one is registered once per client
+ * (`registerRecordMutationDefaults`), not in the hook, so a create that waited offline, was kept
+ * on the device and restored after a reload still knows how to send itself.
+ */
+export const recordCreateRoot = [...recordsRoot, 'create'] as const;
+export const recordCreateKey = (kind: RecordFormKind, ownerId: string) => [...recordCreateRoot, kind, ownerId] as const;
+
+/** Sends a record create with its draft's Idempotency-Key. */
+export function sendRecordCreate<K extends RecordFormKind>({ kind, ownerId, input, idempotencyKey }: RecordCreateVariables<K>): Promise<RecordDto<K>> {
+  return apiFetch<unknown>(listPath(kind, ownerId), { method: 'POST', body: input, headers: { 'Idempotency-Key': idempotencyKey } }).then((b) =>
+    unwrap(kind, b),
+  );
+}
+
+/**
+ * Record creates on this client: sent when online, paused while offline (networkMode 'online');
+ * not retried by themselves (a form shows its own error; the offline queue sends a create whose
+ * connection failed again when the browser is back online); kept until they are sent or the
+ * keeper discards them (gcTime Infinity), so a refusal stays visible.
+ * `afterSaved` runs for every stored record, also one resumed after a reload (the Quick check's
+ * photos go then).
+ */
+export function registerRecordMutationDefaults(qc: QueryClient, afterSaved: (record: RecordDto, variables: RecordCreateVariables) => void = () => undefined) {
+  qc.setMutationDefaults(recordCreateRoot, {
+    mutationFn: (v: RecordCreateVariables) => sendRecordCreate(v),
+    networkMode: 'online',
+    retry: false,
+    gcTime: Infinity,
+    onSuccess: (record: RecordDto, variables: RecordCreateVariables) => {
+      qc.setQueryData(recordKey(record.recordKind, record.id), record);
       invalidateAfterWrite(qc, record);
+      afterSaved(record, variables);
     },
   });
+}
+
+/** Create a record of `kind` for a hive (or, for a Forage check, an apiary); the defaults above send it. */
+export function useRecordCreateMutation<K extends RecordFormKind>(kind: K, ownerId: string) {
+  return useMutation<RecordDto<K>, unknown, RecordCreateVariables<K>>({ mutationKey: recordCreateKey(kind, ownerId) });
 }
 
 /** A 409's body: the record as it is now, so the form can show it. */

@@ -8,6 +8,7 @@ import { FrameMark } from '@/components/ui/icons';
 import { Notice } from '@/components/ui/notice';
 import { ScreenInsetsContext } from '@/components/ui/screen';
 import { Text } from '@/components/ui/text';
+import { OfflineQueue } from '@/components/offline/offline-queue';
 import { NAV_ITEMS, isFormPath } from './nav-items';
 import { NavLink } from './nav-link';
 import { SignOutButton } from './sign-out-button';
@@ -70,6 +71,7 @@ export function AppShell({ children }: { children: ReactNode }) {
         </View>
         <View style={{ flex: 1 }}>
           {errorBanner}
+          <OfflineQueue />
           <ScreenInsetsContext.Provider value={{ top: true, bottom: true }}>{children}</ScreenInsetsContext.Provider>
         </View>
       </View>
@@ -96,6 +98,7 @@ export function AppShell({ children }: { children: ReactNode }) {
         <SignOutButton onError={setSignOutError} />
       </View>
       {errorBanner}
+      <OfflineQueue />
       <View style={{ flex: 1 }}>
         <ScreenInsetsContext.Provider value={{ top: false, bottom: isFormPath(pathname) }}>{children}</ScreenInsetsContext.Provider>
       </View>

@@ -194,6 +194,11 @@ export function useQueuedPhotos(draftKey: string): QueuedPhoto[] {
   return all.filter((p) => p.draftKey === draftKey);
 }
 
+/** Every photo waiting or sending on this device (the offline queue in the app shell lists them). */
+export function useAllQueuedPhotos(): QueuedPhoto[] {
+  return useSyncExternalStore(subscribe, () => snapshot, () => snapshot);
+}
+
 /** Called with the hive id after each photo reached the server (screens refresh their lists). */
 export function onPhotoUploaded(l: (hiveId: string) => void): () => void {
   uploadedListeners.add(l);

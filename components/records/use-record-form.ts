@@ -1,4 +1,5 @@
 import type { Href } from 'expo-router';
+import { onlineManager } from '@tanstack/react-query';
 import { useCallback, useState } from 'react';
 import type { ZodType } from 'zod';
 import type { RecordFormKind } from '@/shared/schemas/records';
@@ -110,7 +111,16 @@ export function useRecordForm<K extends RecordFormKind, V extends TimedValues>(o
       });
       return;
     }
-    create.mutate({ input, idempotencyKey: draft.idempotencyKey }, { onSuccess: saved });
+    const variables = { kind: o.kind, ownerId: o.ownerId, input, idempotencyKey: draft.idempotencyKey, draft: { ...v, occurredAt }, queued: false };
+    if (!onlineManager.isOnline()) {
+      // No connection: the create waits in the offline queue (kept on the device, sent when the
+      // connection returns, with this draft's key), so the draft itself can go.
+      create.mutate({ ...variables, queued: true });
+      draft.clear();
+      leave();
+      return;
+    }
+    create.mutate(variables, { onSuccess: saved });
   };
 
   return { draft, set, save, saving: pending, error: formError ?? create.error ?? update.error };

@@ -561,6 +561,8 @@ describe('Quick check and record forms, end to end in Chromium', () => {
     expect(other.status).toBe(200);
     await byTestId(page, 'stepper-framesBrood-inc').click();
     await byTestId(page, 'quick-check-save').click();
+    // The notice changes when the 409 arrives: wait for it rather than read it once.
+    await page.waitForFunction(() => document.querySelector('[data-testid="quick-check-editing"]')?.textContent?.includes('Someone else saved this check first'));
     await expect(byTestId(page, 'quick-check-editing').textContent()).resolves.toContain('Someone else saved this check first');
     await expect(byTestId(page, 'stepper-framesBees-value').textContent()).resolves.toBe('9');
     await expect(byTestId(page, 'stepper-framesBrood-value').textContent()).resolves.toBe('5½');
