@@ -179,9 +179,11 @@ function QueuedRow({ q, testID }: { q: QueuedPhoto; testID: string }) {
         </Text>
         {q.state === 'uploading' ? (
           <View
-            accessibilityRole="progressbar"
-            accessibilityLabel={`Sending ${q.label}`}
-            accessibilityValue={{ min: 0, max: 100, now: pct }}
+            role="progressbar"
+            aria-label={`Sending ${q.label}`}
+            aria-valuemin={0}
+            aria-valuemax={100}
+            aria-valuenow={pct}
             testID={`${testID}-progress`}
             style={{ height: 12, borderRadius: t.radius.pill, borderWidth: 1, borderColor: t.colours.ink, backgroundColor: t.colours.sunk, overflow: 'hidden' }}
           >

@@ -52,6 +52,18 @@ export function PhotoViewer({ photos, index, onIndex, onDelete, subtitle }: Prop
   }, [open, i, photos.length, onIndex]);
 
   if (!photo) return null;
+  const deleteButton = onDelete ? (
+    <BigButton
+      testID="photo-viewer-delete"
+      variant={confirming ? 'danger' : 'secondary'}
+      label={confirming ? 'Tap again to delete' : 'Delete photo'}
+      onPress={() => {
+        if (!confirming) return setConfirming(true);
+        onDelete(photo);
+        onIndex(photos.length > 1 ? Math.max(0, i - (hasNext ? 0 : 1)) : null);
+      }}
+    />
+  ) : null;
   return (
     <Modal visible transparent={false} animationType="none" onRequestClose={() => onIndex(null)}>
       <View testID="photo-viewer" style={{ flex: 1, backgroundColor: t.colours.ink, padding: t.space.md, gap: t.space.md }}>
@@ -76,7 +88,8 @@ export function PhotoViewer({ photos, index, onIndex, onDelete, subtitle }: Prop
             style={{ flex: 1, width: '100%', height: '100%' }}
           />
         </View>
-        <View style={{ flexDirection: 'row', gap: t.targetGap, flexWrap: 'wrap', justifyContent: isWide ? 'center' : 'space-between' }}>
+        {deleteButton && !isWide ? <View style={{ flexDirection: 'row', justifyContent: 'flex-end' }}>{deleteButton}</View> : null}
+        <View style={{ flexDirection: 'row', gap: t.targetGap, justifyContent: 'center' }}>
           <BigButton
             testID="photo-viewer-prev"
             variant="secondary"
@@ -85,21 +98,9 @@ export function PhotoViewer({ photos, index, onIndex, onDelete, subtitle }: Prop
             icon={(c) => <ChevronLeftIcon colour={c} />}
             disabled={!hasPrev}
             onPress={() => onIndex(i - 1)}
-            style={{ flexGrow: isWide ? 0 : 1, minWidth: 140 }}
+            style={isWide ? { minWidth: 200 } : { flex: 1 }}
           />
-          {onDelete ? (
-            <BigButton
-              testID="photo-viewer-delete"
-              variant={confirming ? 'danger' : 'secondary'}
-              label={confirming ? 'Tap again to delete' : 'Delete'}
-              onPress={() => {
-                if (!confirming) return setConfirming(true);
-                onDelete(photo);
-                onIndex(photos.length > 1 ? Math.max(0, i - (hasNext ? 0 : 1)) : null);
-              }}
-              style={{ flexGrow: isWide ? 0 : 1, minWidth: 140 }}
-            />
-          ) : null}
+          {isWide ? deleteButton : null}
           <BigButton
             testID="photo-viewer-next"
             variant="secondary"
@@ -108,7 +109,7 @@ export function PhotoViewer({ photos, index, onIndex, onDelete, subtitle }: Prop
             icon={(c) => <ChevronRightIcon colour={c} />}
             disabled={!hasNext}
             onPress={() => onIndex(i + 1)}
-            style={{ flexGrow: isWide ? 0 : 1, minWidth: 140 }}
+            style={isWide ? { minWidth: 200 } : { flex: 1 }}
           />
         </View>
       </View>
