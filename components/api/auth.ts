@@ -46,7 +46,24 @@ export function useSignUpMutation() {
 export function useSignOutMutation() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: () => apiFetch<void>('/api/auth/sign-out', { method: 'POST' }),
+    mutationFn: () => {
+      // Signing out clears this device, and with it the records waiting to be sent: refuse until
+      // they are sent or discarded (the offline queue in the app shell lists them).
+      const waiting = qc
+        .getMutationCache()
+        .getAll()
+        .filter((m) => {
+          if (m.options.mutationKey?.[0] !== 'records' || m.options.mutationKey?.[1] !== 'create') return false;
+          return m.state.status === 'pending' || (m.state.status === 'error' && (m.state.variables as { queued?: boolean } | undefined)?.queued === true);
+        }).length;
+      if (waiting > 0) {
+        const what = waiting === 1 ? '1 record is' : `${waiting} records are`;
+        return Promise.reject(new ApiError(0, 'records_waiting', `${what} still waiting on this device. Send or discard them before signing out.`));
+      }
+      return apiFetch<void>('/api/auth/sign-out', { method: 'POST' });
+    },
+    // Runs offline too, so the keeper hears why instead of waiting on a paused request.
+    networkMode: 'always',
     // Nothing of the last person's apiaries may linger on a shared device. Only on success:
     // a failed request leaves the session cookie alive, so the screen must not pretend otherwise.
     onSuccess: () => {

@@ -181,6 +181,9 @@ describe('offline at an out-apiary', () => {
     await expect(summary(page).textContent()).resolves.toContain('2 records waiting to send');
     await byTestId(page, 'offline-queue-toggle').click();
     await expect(page.locator('[data-testid="offline-record-waiting"]').count()).resolves.toBe(2);
+    // Signing out would clear the device: refused while records wait.
+    await byTestId(page, 'nav-sign-out').click();
+    await page.getByText('2 records are still waiting on this device. Send or discard them before signing out.').waitFor();
     await page.goto('/');
     await byTestId(page, 'offline-queue-toggle').click();
     await byTestId(page, 'offline-queue-list').waitFor();
