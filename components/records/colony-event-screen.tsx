@@ -1,4 +1,3 @@
-import { useLocalSearchParams } from 'expo-router';
 import { View } from 'react-native';
 import { COLONY_EVENT_KINDS, type ColonyEventKind } from '@/shared/domain/records';
 import { colonyEventCreateSchema, RECORD_LIMITS, type ColonyEventCreateInput, type ColonyEventDto } from '@/shared/schemas/records';
@@ -6,13 +5,11 @@ import { useHiveQuery, useHivesQuery } from '@/components/api/hives';
 import { useNow } from '@/components/layout/use-now';
 import { useTheme } from '@/components/theme/use-theme';
 import { ChoiceChips } from '@/components/ui/choice-chips';
-import { LoadError, Loading } from '@/components/ui/query-state';
-import { Screen } from '@/components/ui/screen';
 import { Text } from '@/components/ui/text';
 import { DraftRestored } from './draft-restored';
 import { EditingNotice } from './editing-notice';
-import { EditLoading } from './edit-loading';
-import { useEditTarget, type EditTarget } from './use-edit-target';
+import { HiveRecordGate } from './hive-record-gate';
+import type { EditTarget } from './use-edit-target';
 import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
 import { COLONY_EVENT_LABELS, optionsOf } from './record-labels';
 import { useRecordForm, type TimedValues } from './use-record-form';
@@ -47,18 +44,11 @@ export function colonyEventFromRecord(r: ColonyEventDto): ColonyEventValues {
 
 /** Colony event: /hives/[hiveId]/colony-event. */
 export function ColonyEventScreen() {
-  const { hiveId } = useLocalSearchParams<{ hiveId: string }>();
-  const hive = useHiveQuery(hiveId);
-  const target = useEditTarget('colony-event');
-  if (target.waiting) return <EditLoading title="Colony event" query={target.query} />;
-  if (hive.isPending || hive.isError) {
-    return (
-      <Screen title="Colony event">
-        {hive.isPending ? <Loading label="Loading the hive…" /> : <LoadError error={hive.error} onRetry={() => void hive.refetch()} />}
-      </Screen>
-    );
-  }
-  return <ColonyEventForm key={target.formKey} target={target} hiveId={hive.data.id} hiveName={hive.data.name} apiaryId={hive.data.apiaryId} />;
+  return (
+    <HiveRecordGate kind="colony-event" title="Colony event">
+      {(hive, target) => <ColonyEventForm key={target.formKey} target={target} hiveId={hive.id} hiveName={hive.name} apiaryId={hive.apiaryId} />}
+    </HiveRecordGate>
+  );
 }
 
 function ColonyEventForm({ hiveId, hiveName, apiaryId, target }: { hiveId: string; hiveName: string; apiaryId: string; target: EditTarget<'colony-event'> }) {

@@ -1,13 +1,9 @@
-import { useLocalSearchParams } from 'expo-router';
 import { cautionsFor } from '@/shared/domain/cautions';
 import { FEEDER_TYPES, FEEDING_KINDS, SYRUP_BASES, SYRUP_RATIOS, type FeederType, type FeedingKind, type SyrupBasis, type SyrupRatio } from '@/shared/domain/records';
 import { gallonsToLitres, kgToLb, lbToKg, litresToGallons } from '@/shared/domain/units';
 import { feedingCreateSchema, RECORD_LIMITS, type FeedingCreateInput, type FeedingDto } from '@/shared/schemas/records';
-import { useHiveQuery } from '@/components/api/hives';
 import { useNow } from '@/components/layout/use-now';
 import { ChoiceChips } from '@/components/ui/choice-chips';
-import { LoadError, Loading } from '@/components/ui/query-state';
-import { Screen } from '@/components/ui/screen';
 import { Stepper } from '@/components/ui/stepper';
 import { Text } from '@/components/ui/text';
 import { SyrupSugarLine } from '@/components/tools/syrup-sugar-line';
@@ -16,8 +12,8 @@ import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from 
 import { FEEDER_TYPE_LABELS, FEEDING_KIND_LABELS, optionsOf, SYRUP_BASIS_LABELS, SYRUP_RATIO_LABELS } from './record-labels';
 import { DraftRestored } from './draft-restored';
 import { EditingNotice } from './editing-notice';
-import { EditLoading } from './edit-loading';
-import { useEditTarget, type EditTarget } from './use-edit-target';
+import { HiveRecordGate } from './hive-record-gate';
+import type { EditTarget } from './use-edit-target';
 import { useRecordForm, type TimedValues } from './use-record-form';
 import { useUnits, type UnitSystem } from './use-units';
 
@@ -120,18 +116,11 @@ export function feedingFromRecord(r: FeedingDto): FeedingValues {
 
 /** Feeding: /hives/[hiveId]/feeding. */
 export function FeedingScreen() {
-  const { hiveId } = useLocalSearchParams<{ hiveId: string }>();
-  const hive = useHiveQuery(hiveId);
-  const target = useEditTarget('feeding');
-  if (target.waiting) return <EditLoading title="Feeding" query={target.query} />;
-  if (hive.isPending || hive.isError) {
-    return (
-      <Screen title="Feeding">
-        {hive.isPending ? <Loading label="Loading the hive…" /> : <LoadError error={hive.error} onRetry={() => void hive.refetch()} />}
-      </Screen>
-    );
-  }
-  return <FeedingForm key={target.formKey} target={target} hiveId={hive.data.id} hiveName={hive.data.name} />;
+  return (
+    <HiveRecordGate kind="feeding" title="Feeding">
+      {(hive, target) => <FeedingForm key={target.formKey} target={target} hiveId={hive.id} hiveName={hive.name} />}
+    </HiveRecordGate>
+  );
 }
 
 function FeedingForm({ hiveId, hiveName, target }: { hiveId: string; hiveName: string; target: EditTarget<'feeding'> }) {

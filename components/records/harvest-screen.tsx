@@ -1,20 +1,16 @@
-import { useLocalSearchParams } from 'expo-router';
 import { View } from 'react-native';
 import { kgToLb, lbToKg } from '@/shared/domain/units';
 import { harvestCreateSchema, RECORD_LIMITS, type HarvestCreateInput, type HarvestDto } from '@/shared/schemas/records';
-import { useHiveQuery } from '@/components/api/hives';
 import { useNow } from '@/components/layout/use-now';
 import { useTheme } from '@/components/theme/use-theme';
 import { BigButton } from '@/components/ui/big-button';
 import { ChoiceChips } from '@/components/ui/choice-chips';
-import { LoadError, Loading } from '@/components/ui/query-state';
-import { Screen } from '@/components/ui/screen';
 import { Stepper } from '@/components/ui/stepper';
 import { Text } from '@/components/ui/text';
 import { DraftRestored } from './draft-restored';
 import { EditingNotice } from './editing-notice';
-import { EditLoading } from './edit-loading';
-import { useEditTarget, type EditTarget } from './use-edit-target';
+import { HiveRecordGate } from './hive-record-gate';
+import type { EditTarget } from './use-edit-target';
 import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
 import { useRecordForm, type TimedValues } from './use-record-form';
 import { useUnits, type UnitSystem } from './use-units';
@@ -65,18 +61,11 @@ export function harvestFromRecord(r: HarvestDto): HarvestValues {
 
 /** Harvest: /hives/[hiveId]/harvest. */
 export function HarvestScreen() {
-  const { hiveId } = useLocalSearchParams<{ hiveId: string }>();
-  const hive = useHiveQuery(hiveId);
-  const target = useEditTarget('harvest');
-  if (target.waiting) return <EditLoading title="Harvest" query={target.query} />;
-  if (hive.isPending || hive.isError) {
-    return (
-      <Screen title="Harvest">
-        {hive.isPending ? <Loading label="Loading the hive…" /> : <LoadError error={hive.error} onRetry={() => void hive.refetch()} />}
-      </Screen>
-    );
-  }
-  return <HarvestForm key={target.formKey} target={target} hiveId={hive.data.id} hiveName={hive.data.name} />;
+  return (
+    <HiveRecordGate kind="harvest" title="Harvest">
+      {(hive, target) => <HarvestForm key={target.formKey} target={target} hiveId={hive.id} hiveName={hive.name} />}
+    </HiveRecordGate>
+  );
 }
 
 function HarvestForm({ hiveId, hiveName, target }: { hiveId: string; hiveName: string; target: EditTarget<'harvest'> }) {

@@ -1,18 +1,14 @@
-import { useLocalSearchParams } from 'expo-router';
 import { MITE_METHODS, miteLoad, type MiteLoad, type MiteMethod } from '@/shared/domain/mites';
 import { miteCountCreateSchema, RECORD_LIMITS, type MiteCountCreateInput, type MiteCountDto } from '@/shared/schemas/records';
-import { useHiveQuery } from '@/components/api/hives';
 import { useNow } from '@/components/layout/use-now';
 import { ChoiceChips } from '@/components/ui/choice-chips';
 import { Notice } from '@/components/ui/notice';
-import { LoadError, Loading } from '@/components/ui/query-state';
-import { Screen } from '@/components/ui/screen';
 import { Stepper } from '@/components/ui/stepper';
 import { Text } from '@/components/ui/text';
 import { DraftRestored } from './draft-restored';
 import { EditingNotice } from './editing-notice';
-import { EditLoading } from './edit-loading';
-import { useEditTarget, type EditTarget } from './use-edit-target';
+import { HiveRecordGate } from './hive-record-gate';
+import type { EditTarget } from './use-edit-target';
 import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
 import { MITE_METHOD_LABELS, optionsOf } from './record-labels';
 import { useRecordForm, type TimedValues } from './use-record-form';
@@ -70,18 +66,11 @@ export function miteCountFromRecord(r: MiteCountDto): MiteCountValues {
 
 /** Mite count: /hives/[hiveId]/mite-count. */
 export function MiteCountScreen() {
-  const { hiveId } = useLocalSearchParams<{ hiveId: string }>();
-  const hive = useHiveQuery(hiveId);
-  const target = useEditTarget('mite-count');
-  if (target.waiting) return <EditLoading title="Mite count" query={target.query} />;
-  if (hive.isPending || hive.isError) {
-    return (
-      <Screen title="Mite count">
-        {hive.isPending ? <Loading label="Loading the hive…" /> : <LoadError error={hive.error} onRetry={() => void hive.refetch()} />}
-      </Screen>
-    );
-  }
-  return <MiteCountForm key={target.formKey} target={target} hiveId={hive.data.id} hiveName={hive.data.name} />;
+  return (
+    <HiveRecordGate kind="mite-count" title="Mite count">
+      {(hive, target) => <MiteCountForm key={target.formKey} target={target} hiveId={hive.id} hiveName={hive.name} />}
+    </HiveRecordGate>
+  );
 }
 
 function MiteCountForm({ hiveId, hiveName, target }: { hiveId: string; hiveName: string; target: EditTarget<'mite-count'> }) {

@@ -1,15 +1,11 @@
-import { useLocalSearchParams } from 'expo-router';
 import { QUEEN_EVENT_KINDS, type QueenEventKind } from '@/shared/domain/records';
 import { queenEventCreateSchema, RECORD_LIMITS, type QueenEventCreateInput, type QueenEventDto } from '@/shared/schemas/records';
-import { useHiveQuery } from '@/components/api/hives';
 import { useNow } from '@/components/layout/use-now';
 import { ChoiceChips } from '@/components/ui/choice-chips';
-import { LoadError, Loading } from '@/components/ui/query-state';
-import { Screen } from '@/components/ui/screen';
 import { DraftRestored } from './draft-restored';
 import { EditingNotice } from './editing-notice';
-import { EditLoading } from './edit-loading';
-import { useEditTarget, type EditTarget } from './use-edit-target';
+import { HiveRecordGate } from './hive-record-gate';
+import type { EditTarget } from './use-edit-target';
 import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
 import { optionsOf, QUEEN_EVENT_LABELS } from './record-labels';
 import { useRecordForm, type TimedValues } from './use-record-form';
@@ -33,18 +29,11 @@ export function queenEventFromRecord(r: QueenEventDto): QueenEventValues {
 
 /** Queen event: /hives/[hiveId]/queen-event. */
 export function QueenEventScreen() {
-  const { hiveId } = useLocalSearchParams<{ hiveId: string }>();
-  const hive = useHiveQuery(hiveId);
-  const target = useEditTarget('queen-event');
-  if (target.waiting) return <EditLoading title="Queen event" query={target.query} />;
-  if (hive.isPending || hive.isError) {
-    return (
-      <Screen title="Queen event">
-        {hive.isPending ? <Loading label="Loading the hive…" /> : <LoadError error={hive.error} onRetry={() => void hive.refetch()} />}
-      </Screen>
-    );
-  }
-  return <QueenEventForm key={target.formKey} target={target} hiveId={hive.data.id} hiveName={hive.data.name} />;
+  return (
+    <HiveRecordGate kind="queen-event" title="Queen event">
+      {(hive, target) => <QueenEventForm key={target.formKey} target={target} hiveId={hive.id} hiveName={hive.name} />}
+    </HiveRecordGate>
+  );
 }
 
 function QueenEventForm({ hiveId, hiveName, target }: { hiveId: string; hiveName: string; target: EditTarget<'queen-event'> }) {

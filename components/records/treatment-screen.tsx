@@ -1,22 +1,18 @@
-import { useLocalSearchParams } from 'expo-router';
 import { View } from 'react-native';
 import { cautionsFor } from '@/shared/domain/cautions';
 import type { IsoDate } from '@/shared/domain/dates';
 import { TREATMENT_ACTIVE_INGREDIENTS, TREATMENT_METHODS, type TreatmentActiveIngredient, type TreatmentMethod } from '@/shared/domain/records';
 import { RECORD_LIMITS, treatmentCreateSchema, type TreatmentCreateInput, type TreatmentDto } from '@/shared/schemas/records';
-import { useHiveQuery } from '@/components/api/hives';
 import { useNow } from '@/components/layout/use-now';
 import { useTheme } from '@/components/theme/use-theme';
 import { ChoiceChips } from '@/components/ui/choice-chips';
 import { Notice } from '@/components/ui/notice';
-import { LoadError, Loading } from '@/components/ui/query-state';
-import { Screen } from '@/components/ui/screen';
 import { TextField } from '@/components/ui/text-field';
 import { CautionList } from './caution-list';
 import { DraftRestored } from './draft-restored';
 import { EditingNotice } from './editing-notice';
-import { EditLoading } from './edit-loading';
-import { useEditTarget, type EditTarget } from './use-edit-target';
+import { HiveRecordGate } from './hive-record-gate';
+import type { EditTarget } from './use-edit-target';
 import { DateField, FormGroup, NoteField, RecordFormScreen, SaveBar } from './record-form';
 import { ACTIVE_INGREDIENT_LABELS, optionsOf, TREATMENT_METHOD_LABELS } from './record-labels';
 import { useRecordForm, type TimedValues } from './use-record-form';
@@ -95,18 +91,11 @@ export function treatmentFromRecord(r: TreatmentDto): TreatmentValues {
 
 /** Treatment: /hives/[hiveId]/treatment. */
 export function TreatmentScreen() {
-  const { hiveId } = useLocalSearchParams<{ hiveId: string }>();
-  const hive = useHiveQuery(hiveId);
-  const target = useEditTarget('treatment');
-  if (target.waiting) return <EditLoading title="Treatment" query={target.query} />;
-  if (hive.isPending || hive.isError) {
-    return (
-      <Screen title="Treatment">
-        {hive.isPending ? <Loading label="Loading the hive…" /> : <LoadError error={hive.error} onRetry={() => void hive.refetch()} />}
-      </Screen>
-    );
-  }
-  return <TreatmentForm key={target.formKey} target={target} hiveId={hive.data.id} hiveName={hive.data.name} />;
+  return (
+    <HiveRecordGate kind="treatment" title="Treatment">
+      {(hive, target) => <TreatmentForm key={target.formKey} target={target} hiveId={hive.id} hiveName={hive.name} />}
+    </HiveRecordGate>
+  );
 }
 
 function TreatmentForm({ hiveId, hiveName, target }: { hiveId: string; hiveName: string; target: EditTarget<'treatment'> }) {
