@@ -43,12 +43,9 @@ export function AppShell({ children }: { children: ReactNode }) {
     </View>
   ) : null;
 
-  const formPath = isFormPath(pathname);
-  // One tree for both widths, so crossing the breakpoint (a phone turned, a window resized) swaps
-  // the bars but keeps the screen stack mounted where it is, and the keeper on their page.
-  return (
-    <View style={{ flex: 1, flexDirection: isWide ? 'row' : 'column', backgroundColor: t.colours.bg }}>
-      {isWide ? (
+  if (isWide) {
+    return (
+      <View style={{ flex: 1, flexDirection: 'row', backgroundColor: t.colours.bg }}>
         <View
           role="navigation"
           aria-label="Sections"
@@ -72,35 +69,40 @@ export function AppShell({ children }: { children: ReactNode }) {
           <View style={{ flex: 1 }} />
           <SignOutButton onError={setSignOutError} />
         </View>
-      ) : (
-        <View
-          style={{
-            paddingTop: insets.top + t.space.xxs,
-            paddingBottom: t.space.xxs,
-            paddingHorizontal: t.space.md,
-            flexDirection: 'row',
-            alignItems: 'center',
-            justifyContent: 'space-between',
-            gap: t.targetGap,
-            backgroundColor: t.colours.surface,
-            borderBottomWidth: t.borderWidth.thin,
-            borderBottomColor: t.colours.line,
-          }}
-        >
-          <Brand compact={width < 360} />
-          <SignOutButton onError={setSignOutError} />
-        </View>
-      )}
-      <View style={{ flex: 1 }}>
-        {errorBanner}
-        <OfflineQueue />
         <View style={{ flex: 1 }}>
-          <ScreenInsetsContext.Provider value={isWide ? { top: true, bottom: true } : { top: false, bottom: formPath }}>
-            {children}
-          </ScreenInsetsContext.Provider>
+          {errorBanner}
+          <OfflineQueue />
+          <ScreenInsetsContext.Provider value={{ top: true, bottom: true }}>{children}</ScreenInsetsContext.Provider>
         </View>
       </View>
-      {isWide || formPath ? null : (
+    );
+  }
+
+  return (
+    <View style={{ flex: 1, backgroundColor: t.colours.bg }}>
+      <View
+        style={{
+          paddingTop: insets.top + t.space.xxs,
+          paddingBottom: t.space.xxs,
+          paddingHorizontal: t.space.md,
+          flexDirection: 'row',
+          alignItems: 'center',
+          justifyContent: 'space-between',
+          gap: t.targetGap,
+          backgroundColor: t.colours.surface,
+          borderBottomWidth: t.borderWidth.thin,
+          borderBottomColor: t.colours.line,
+        }}
+      >
+        <Brand compact={width < 360} />
+        <SignOutButton onError={setSignOutError} />
+      </View>
+      {errorBanner}
+      <OfflineQueue />
+      <View style={{ flex: 1 }}>
+        <ScreenInsetsContext.Provider value={{ top: false, bottom: isFormPath(pathname) }}>{children}</ScreenInsetsContext.Provider>
+      </View>
+      {isFormPath(pathname) ? null : (
         <View
           role="navigation"
           aria-label="Sections"

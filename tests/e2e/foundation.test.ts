@@ -60,22 +60,6 @@ describe('foundation, end to end in Chromium', () => {
     await context.close();
   });
 
-  it('keeps the keeper on their page when the window crosses the wide breakpoint', async () => {
-    const { context, page } = await newPage(e, VIEWPORTS.phone);
-    await signIn(page, 'keeper@frameside.test');
-    await byTestId(page, 'nav-apiaries').waitFor();
-    await page.goto(`/hives/${e.ids.hives.Ash}`);
-    await byTestId(page, 'hive-title').waitFor();
-    await page.setViewportSize(VIEWPORTS.wide);
-    await page.waitForTimeout(300);
-    await expect(byTestId(page, 'hive-title').textContent()).resolves.toContain('Ash');
-    await page.setViewportSize(VIEWPORTS.phone);
-    await page.waitForTimeout(300);
-    await expect(byTestId(page, 'hive-title').textContent()).resolves.toContain('Ash');
-    expect(new URL(page.url()).pathname).toBe(`/hives/${e.ids.hives.Ash}`);
-    await context.close();
-  });
-
   it('sends a signed-out visitor of a deep link to sign-in', async () => {
     const { context, page } = await newPage(e);
     await page.goto(`/hives/${e.ids.hives.Ash}`);
