@@ -6,11 +6,10 @@ import { useNow } from '@/components/layout/use-now';
 import { useTheme } from '@/components/theme/use-theme';
 import { ChoiceChips } from '@/components/ui/choice-chips';
 import { Text } from '@/components/ui/text';
-import { DraftRestored } from './draft-restored';
-import { EditingNotice } from './editing-notice';
+import { RecordEditor } from './record-editor';
 import { HiveRecordGate } from './hive-record-gate';
 import type { EditTarget } from './use-edit-target';
-import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
+import { FormGroup, NoteField, VisitTimeField } from './record-form';
 import { COLONY_EVENT_LABELS, optionsOf } from './record-labels';
 import { useRecordForm, type TimedValues } from './use-record-form';
 
@@ -78,17 +77,14 @@ function ColonyEventForm({ hiveId, hiveName, apiaryId, target }: { hiveId: strin
   ];
 
   return (
-    <RecordFormScreen
-      title={target.editing ? 'Edit colony event' : 'Colony event'}
+    <RecordEditor
+      what="colony event"
+      slug="colony-event"
       subject={hiveName}
       backHref={{ pathname: '/hives/[hiveId]', params: { hiveId } }}
-      testID="colony-event-screen"
-      intro={
-        <>
-          {target.editing ? <EditingNotice record={target.editing} stale={target.stale} what="colony event" testID="colony-event" /> : null}
-          <DraftRestored draft={draft} testID="colony-event" />
-        </>
-      }
+      target={target}
+      draft={draft}
+      form={form}
       left={
         <FormGroup title="What happened">
           <ChoiceChips field="kind" label="The colony" hideLabel options={kindOptions} value={v.kind} onChange={(kind) => set({ kind })} />
@@ -110,7 +106,6 @@ function ColonyEventForm({ hiveId, hiveName, apiaryId, target }: { hiveId: strin
           </FormGroup>
         </>
       }
-      bottomBar={<SaveBar testID="colony-event-save" label={target.editing ? 'Save changes' : 'Save colony event'} onSave={form.save} saving={form.saving} error={form.error} />}
     />
   );
 }

@@ -8,10 +8,9 @@ import { Stepper } from '@/components/ui/stepper';
 import { Text } from '@/components/ui/text';
 import { SyrupSugarLine } from '@/components/tools/syrup-sugar-line';
 import { CautionList } from './caution-list';
-import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
+import { FormGroup, NoteField, VisitTimeField } from './record-form';
 import { FEEDER_TYPE_LABELS, FEEDING_KIND_LABELS, optionsOf, SYRUP_BASIS_LABELS, SYRUP_RATIO_LABELS } from './record-labels';
-import { DraftRestored } from './draft-restored';
-import { EditingNotice } from './editing-notice';
+import { RecordEditor } from './record-editor';
 import { HiveRecordGate } from './hive-record-gate';
 import type { EditTarget } from './use-edit-target';
 import { useRecordForm, type TimedValues } from './use-record-form';
@@ -225,20 +224,16 @@ function FeedingForm({ hiveId, hiveName, target }: { hiveId: string; hiveName: s
   );
 
   return (
-    <RecordFormScreen
-      title={target.editing ? 'Edit feeding' : 'Feeding'}
+    <RecordEditor
+      what="feeding"
+      slug="feeding"
       subject={hiveName}
       backHref={{ pathname: '/hives/[hiveId]', params: { hiveId } }}
-      testID="feeding-screen"
-      intro={
-        <>
-          {target.editing ? <EditingNotice record={target.editing} stale={target.stale} what="feeding" testID="feeding" /> : null}
-          <DraftRestored draft={draft} testID="feeding" />
-        </>
-      }
+      target={target}
+      draft={draft}
+      form={form}
       left={left}
       right={right}
-      bottomBar={<SaveBar testID="feeding-save" label={target.editing ? 'Save changes' : 'Save feeding'} onSave={form.save} saving={form.saving} error={form.error} />}
     />
   );
 }

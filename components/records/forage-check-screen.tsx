@@ -10,11 +10,10 @@ import { LoadError, Loading } from '@/components/ui/query-state';
 import { Screen } from '@/components/ui/screen';
 import { Stepper } from '@/components/ui/stepper';
 import { CautionList } from './caution-list';
-import { DraftRestored } from './draft-restored';
-import { EditingNotice } from './editing-notice';
+import { RecordEditor } from './record-editor';
 import { EditLoading } from './edit-loading';
 import { useEditTarget, type EditTarget } from './use-edit-target';
-import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
+import { FormGroup, NoteField, VisitTimeField } from './record-form';
 import { FORAGE_JUDGEMENT_LABELS, optionsOf } from './record-labels';
 import { useRecordForm, type TimedValues } from './use-record-form';
 
@@ -192,20 +191,16 @@ function ForageCheckForm({ apiaryId, apiaryName, target }: { apiaryId: string; a
   );
 
   return (
-    <RecordFormScreen
-      title={target.editing ? 'Edit forage check' : 'Forage check'}
+    <RecordEditor
+      what="forage check"
+      slug="forage-check"
       subject={apiaryName}
       backHref={{ pathname: '/apiaries/[apiaryId]', params: { apiaryId } }}
-      testID="forage-check-screen"
-      intro={
-        <>
-          {target.editing ? <EditingNotice record={target.editing} stale={target.stale} what="forage check" testID="forage-check" /> : null}
-          <DraftRestored draft={draft} testID="forage-check" />
-        </>
-      }
+      target={target}
+      draft={draft}
+      form={form}
       left={left}
       right={right}
-      bottomBar={<SaveBar testID="forage-check-save" label={target.editing ? 'Save changes' : 'Save forage check'} onSave={form.save} saving={form.saving} error={form.error} />}
     />
   );
 }

@@ -7,11 +7,10 @@ import { BigButton } from '@/components/ui/big-button';
 import { ChoiceChips } from '@/components/ui/choice-chips';
 import { Stepper } from '@/components/ui/stepper';
 import { Text } from '@/components/ui/text';
-import { DraftRestored } from './draft-restored';
-import { EditingNotice } from './editing-notice';
+import { RecordEditor } from './record-editor';
 import { HiveRecordGate } from './hive-record-gate';
 import type { EditTarget } from './use-edit-target';
-import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
+import { FormGroup, NoteField, VisitTimeField } from './record-form';
 import { useRecordForm, type TimedValues } from './use-record-form';
 import { useUnits, type UnitSystem } from './use-units';
 
@@ -169,20 +168,16 @@ function HarvestForm({ hiveId, hiveName, target }: { hiveId: string; hiveName: s
   );
 
   return (
-    <RecordFormScreen
-      title={target.editing ? 'Edit harvest' : 'Harvest'}
+    <RecordEditor
+      what="harvest"
+      slug="harvest"
       subject={hiveName}
       backHref={{ pathname: '/hives/[hiveId]', params: { hiveId } }}
-      testID="harvest-screen"
-      intro={
-        <>
-          {target.editing ? <EditingNotice record={target.editing} stale={target.stale} what="harvest" testID="harvest" /> : null}
-          <DraftRestored draft={draft} testID="harvest" />
-        </>
-      }
+      target={target}
+      draft={draft}
+      form={form}
       left={left}
       right={right}
-      bottomBar={<SaveBar testID="harvest-save" label={target.editing ? 'Save changes' : 'Save harvest'} onSave={form.save} saving={form.saving} error={form.error} />}
     />
   );
 }

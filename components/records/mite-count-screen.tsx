@@ -5,11 +5,10 @@ import { ChoiceChips } from '@/components/ui/choice-chips';
 import { Notice } from '@/components/ui/notice';
 import { Stepper } from '@/components/ui/stepper';
 import { Text } from '@/components/ui/text';
-import { DraftRestored } from './draft-restored';
-import { EditingNotice } from './editing-notice';
+import { RecordEditor } from './record-editor';
 import { HiveRecordGate } from './hive-record-gate';
 import type { EditTarget } from './use-edit-target';
-import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
+import { FormGroup, NoteField, VisitTimeField } from './record-form';
 import { MITE_METHOD_LABELS, optionsOf } from './record-labels';
 import { useRecordForm, type TimedValues } from './use-record-form';
 
@@ -150,21 +149,17 @@ function MiteCountForm({ hiveId, hiveName, target }: { hiveId: string; hiveName:
   );
 
   return (
-    <RecordFormScreen
-      title={target.editing ? 'Edit mite count' : 'Mite count'}
+    <RecordEditor
+      what="mite count"
+      slug="mite-count"
       subject={hiveName}
       backHref={{ pathname: '/hives/[hiveId]', params: { hiveId } }}
-      testID="mite-count-screen"
-      intro={
-        <>
-          {target.editing ? <EditingNotice record={target.editing} stale={target.stale} what="mite count" testID="mite-count" /> : null}
-          <DraftRestored draft={draft} testID="mite-count" />
-          {board ? <Text tone="muted">Natural mite fall on a board tracks the colony’s load loosely: confirm a high count with a wash.</Text> : null}
-        </>
-      }
+      target={target}
+      draft={draft}
+      form={form}
+      intro={board ? <Text tone="muted">Natural mite fall on a board tracks the colony’s load loosely: confirm a high count with a wash.</Text> : null}
       left={left}
       right={right}
-      bottomBar={<SaveBar testID="mite-count-save" label={target.editing ? 'Save changes' : 'Save mite count'} onSave={form.save} saving={form.saving} error={form.error} />}
     />
   );
 }

@@ -2,11 +2,10 @@ import { QUEEN_EVENT_KINDS, type QueenEventKind } from '@/shared/domain/records'
 import { queenEventCreateSchema, RECORD_LIMITS, type QueenEventCreateInput, type QueenEventDto } from '@/shared/schemas/records';
 import { useNow } from '@/components/layout/use-now';
 import { ChoiceChips } from '@/components/ui/choice-chips';
-import { DraftRestored } from './draft-restored';
-import { EditingNotice } from './editing-notice';
+import { RecordEditor } from './record-editor';
 import { HiveRecordGate } from './hive-record-gate';
 import type { EditTarget } from './use-edit-target';
-import { FormGroup, NoteField, RecordFormScreen, SaveBar, VisitTimeField } from './record-form';
+import { FormGroup, NoteField, VisitTimeField } from './record-form';
 import { optionsOf, QUEEN_EVENT_LABELS } from './record-labels';
 import { useRecordForm, type TimedValues } from './use-record-form';
 
@@ -55,17 +54,14 @@ function QueenEventForm({ hiveId, hiveName, target }: { hiveId: string; hiveName
   const v = draft.values;
   if (!v) return null;
   return (
-    <RecordFormScreen
-      title={target.editing ? 'Edit queen event' : 'Queen event'}
+    <RecordEditor
+      what="queen event"
+      slug="queen-event"
       subject={hiveName}
       backHref={{ pathname: '/hives/[hiveId]', params: { hiveId } }}
-      testID="queen-event-screen"
-      intro={
-        <>
-          {target.editing ? <EditingNotice record={target.editing} stale={target.stale} what="queen event" testID="queen-event" /> : null}
-          <DraftRestored draft={draft} testID="queen-event" />
-        </>
-      }
+      target={target}
+      draft={draft}
+      form={form}
       left={
         <FormGroup title="What happened">
           <ChoiceChips field="kind" label="The queen was" hideLabel options={kindOptions} value={v.kind} onChange={(kind) => set({ kind })} />
@@ -81,7 +77,6 @@ function QueenEventForm({ hiveId, hiveName, target }: { hiveId: string; hiveName
           </FormGroup>
         </>
       }
-      bottomBar={<SaveBar testID="queen-event-save" label={target.editing ? 'Save changes' : 'Save queen event'} onSave={form.save} saving={form.saving} error={form.error} />}
     />
   );
 }

@@ -1,19 +1,16 @@
-import { View } from 'react-native';
 import { cautionsFor } from '@/shared/domain/cautions';
 import type { IsoDate } from '@/shared/domain/dates';
 import { TREATMENT_ACTIVE_INGREDIENTS, TREATMENT_METHODS, type TreatmentActiveIngredient, type TreatmentMethod } from '@/shared/domain/records';
 import { RECORD_LIMITS, treatmentCreateSchema, type TreatmentCreateInput, type TreatmentDto } from '@/shared/schemas/records';
 import { useNow } from '@/components/layout/use-now';
-import { useTheme } from '@/components/theme/use-theme';
 import { ChoiceChips } from '@/components/ui/choice-chips';
 import { Notice } from '@/components/ui/notice';
 import { TextField } from '@/components/ui/text-field';
 import { CautionList } from './caution-list';
-import { DraftRestored } from './draft-restored';
-import { EditingNotice } from './editing-notice';
+import { RecordEditor } from './record-editor';
 import { HiveRecordGate } from './hive-record-gate';
 import type { EditTarget } from './use-edit-target';
-import { DateField, FormGroup, NoteField, RecordFormScreen, SaveBar } from './record-form';
+import { DateField, FormGroup, NoteField } from './record-form';
 import { ACTIVE_INGREDIENT_LABELS, optionsOf, TREATMENT_METHOD_LABELS } from './record-labels';
 import { useRecordForm, type TimedValues } from './use-record-form';
 import { localIsoDate } from './when';
@@ -99,7 +96,6 @@ export function TreatmentScreen() {
 }
 
 function TreatmentForm({ hiveId, hiveName, target }: { hiveId: string; hiveName: string; target: EditTarget<'treatment'> }) {
-  const t = useTheme();
   const now = useNow();
   const form = useRecordForm({
     kind: 'treatment',
@@ -205,23 +201,21 @@ function TreatmentForm({ hiveId, hiveName, target }: { hiveId: string; hiveName:
   );
 
   return (
-    <RecordFormScreen
-      title={target.editing ? 'Edit treatment' : 'Treatment'}
+    <RecordEditor
+      what="treatment"
+      slug="treatment"
       subject={hiveName}
       backHref={{ pathname: '/hives/[hiveId]', params: { hiveId } }}
-      testID="treatment-screen"
+      target={target}
+      draft={draft}
+      form={form}
       intro={
-        <View style={{ gap: t.space.sm }}>
-          {target.editing ? <EditingNotice record={target.editing} stale={target.stale} what="treatment" testID="treatment" /> : null}
-          <DraftRestored draft={draft} testID="treatment" />
-          <Notice tone="info" title="The label governs" testID="treatment-label-notice">
-            Frameside records what you gave; the product label (and your local rules) set the dose, timing, method and whether supers may stay on.
-          </Notice>
-        </View>
+        <Notice tone="info" title="The label governs" testID="treatment-label-notice">
+          Frameside records what you gave; the product label (and your local rules) set the dose, timing, method and whether supers may stay on.
+        </Notice>
       }
       left={left}
       right={right}
-      bottomBar={<SaveBar testID="treatment-save" label={target.editing ? 'Save changes' : 'Save treatment'} onSave={form.save} saving={form.saving} error={form.error} />}
     />
   );
 }
